@@ -1,0 +1,47 @@
+// Opens the database: embedded PGlite under DATA_DIR by default, a PostgreSQL server when DATABASE_URL is given.
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
+import * as schema from './schema';
+
+export type Database = PgDatabase<PgQueryResultHKT, typeof schema>;
+
+export interface DatabaseHandle {
+  db: Database;
+  kind: 'pglite' | 'postgres';
+  migrate(): Promise<void>;
+  close(): Promise<void>;
+}
+
+const migrationsFolder = path.join(__dirname, 'migrations');
+
+export async function openDatabase(options: { dataDir: string; databaseUrl?: string }): Promise<DatabaseHandle> {
+  if (options.databaseUrl) {
+    const { Pool } = await import('pg');
+    const { drizzle } = await import('drizzle-orm/node-postgres');
+    const { migrate } = await import('drizzle-orm/node-postgres/migrator');
+    const pool = new Pool({ connectionString: options.databaseUrl });
+    const db = drizzle(pool, { schema });
+    return {
+      db: db as unknown as Database,
+      kind: 'postgres',
+      migrate: () => migrate(db, { migrationsFolder }),
+      close: () => pool.end(),
+    };
+  }
+  const { PGlite } = await import('@electric-sql/pglite');
+  const { drizzle } = await import('drizzle-orm/pglite');
+  const { migrate } = await import('drizzle-orm/pglite/migrator');
+  const dir = path.resolve(options.dataDir, 'pglite');
+  // PGlite creates only the last folder of its path.
+  mkdirSync(path.dirname(dir), { recursive: true });
+  const client = new PGlite(dir);
+  await client.waitReady;
+  const db = drizzle(client, { schema });
+  return {
+    db: db as unknown as Database,
+    kind: 'pglite',
+    migrate: () => migrate(db, { migrationsFolder }),
+    close: () => client.close(),
+  };
+}

@@ -1,0 +1,108 @@
+// Assembles the server: database, mail, auth, API and the web app on one HTTP server. Tests start it on port 0.
+import express from 'express';
+import cors from 'cors';
+import { createServer as createHttpServer, type Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { toNodeHandler } from 'better-auth/node';
+import { openDatabase, type DatabaseHandle } from '../db/client';
+import { isEmpty, seedDemo, DEMO_PASSWORD } from '../db/seed';
+import type { Health } from '../shared/api';
+import { createAuth, type Auth } from './auth';
+import type { ServerConfig } from './config';
+import { apiNotFound, errorHandler } from './http/errors';
+import { requireUser } from './http/session';
+import { startLocalSink, type LocalSink } from './mail/local-sink';
+import { createMailer, type Mailer } from './mail/mailer';
+import { membersRouter } from './api/members/router';
+import { outboxRouter } from './api/outbox/router';
+import { projectsRouter } from './api/projects/router';
+import { projectSheetsRouter, sheetsRouter } from './api/sheets/router';
+import { webRouter } from './web';
+
+export interface RunningServer {
+  url: string;
+  port: number;
+  http: Server;
+  database: DatabaseHandle;
+  auth: Auth;
+  mailer: Mailer;
+  seeded: { email: string; role: string }[] | null;
+  close(): Promise<void>;
+}
+
+const VERSION = '0.1.0';
+
+export async function startServer(
+  config: ServerConfig,
+  log: (line: string) => void = (line) => console.log(line),
+): Promise<RunningServer> {
+  const database = await openDatabase({ dataDir: config.dataDir, databaseUrl: config.databaseUrl });
+  await database.migrate();
+  const { db } = database;
+
+  let sink: LocalSink | null = null;
+  if (!config.smtpUrl) sink = await startLocalSink(db, log);
+  const mailer = createMailer({ smtpUrl: config.smtpUrl, sinkPort: sink?.port, from: config.mailFrom });
+  const auth = createAuth(db, config, mailer);
+
+  let seeded: RunningServer['seeded'] = null;
+  if (config.seedDemo && (await isEmpty(db))) {
+    seeded = await seedDemo(db, async (input) => {
+      const created = await auth.api.signUpEmail({ body: input });
+      return created.user.id;
+    });
+  }
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', false);
+  // Credentialed CORS only for the configured extra origins (the Expo dev server); production is same-origin.
+  const extraOrigins = config.trustedOrigins.filter((o) => o !== config.publicUrl);
+  if (extraOrigins.length > 0) app.use(cors({ origin: extraOrigins, credentials: true }));
+
+  // better-auth reads its own body: mount it before express.json().
+  app.all('/api/auth/{*any}', toNodeHandler(auth));
+  app.use(express.json({ limit: '1mb' }));
+
+  app.get('/api/health', (_req, res) => {
+    res.json({ ok: true, version: VERSION, mail: mailer.kind } satisfies Health);
+  });
+  if (sink) app.use('/api/outbox', outboxRouter(db));
+
+  const api = express.Router();
+  api.use(requireUser(auth));
+  api.use('/projects/:projectId/sheets', projectSheetsRouter(db));
+  api.use('/projects/:projectId/members', membersRouter(db));
+  api.use('/projects', projectsRouter(db));
+  api.use('/sheets', sheetsRouter(db));
+  app.use('/api', (req, res, next) => (req.path === '/health' ? next() : api(req, res, next)));
+  app.use('/api', apiNotFound);
+  app.use(webRouter());
+  app.use(errorHandler(log));
+
+  const http = createHttpServer(app);
+  await new Promise<void>((resolve, reject) => {
+    http.once('error', reject);
+    http.listen(config.port, () => resolve());
+  });
+  const port = (http.address() as AddressInfo).port;
+
+  return {
+    url: `http://localhost:${port}`,
+    port,
+    http,
+    database,
+    auth,
+    mailer,
+    seeded,
+    async close() {
+      await new Promise<void>((resolve) => http.close(() => resolve()));
+      http.closeAllConnections?.();
+      mailer.close();
+      await sink?.close();
+      await database.close();
+    },
+  };
+}
+
+export { DEMO_PASSWORD };

@@ -1,0 +1,20 @@
+// The words of each e-mail Phasewright sends. Plain text first; the HTML says the same.
+const escapeHtml = (s: string) =>
+  s.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch]!);
+
+export function passwordResetMail(name: string, url: string) {
+  const text = [
+    `Hello ${name},`,
+    '',
+    'Someone asked to reset the password of your Phasewright account.',
+    `Open this link within the hour to choose a new one:`,
+    url,
+    '',
+    'If it was not you, ignore this message: your password stays as it is.',
+  ].join('\n');
+  const html =
+    `<p>Hello ${escapeHtml(name)},</p><p>Someone asked to reset the password of your Phasewright account. ` +
+    `Open this link within the hour to choose a new one:</p><p><a href="${escapeHtml(url)}">${escapeHtml(url)}</a></p>` +
+    `<p>If it was not you, ignore this message: your password stays as it is.</p>`;
+  return { subject: 'Reset your Phasewright password', text, html };
+}
