@@ -9,7 +9,7 @@ import { isEmpty, seedDemo, DEMO_PASSWORD } from '../db/seed';
 import type { Health } from '../shared/api';
 import { createAuth, type Auth } from './auth';
 import type { ServerConfig } from './config';
-import { apiNotFound, errorHandler } from './http/errors';
+import { apiNotFound, errorHandler, HttpError } from './http/errors';
 import { requireUser } from './http/session';
 import { startLocalSink, type LocalSink } from './mail/local-sink';
 import { createMailer, type Mailer } from './mail/mailer';
@@ -68,6 +68,10 @@ export async function startServer(
     res.json({ ok: true, version: VERSION, mail: mailer.kind } satisfies Health);
   });
   if (sink) app.use('/api/outbox', outboxRouter(db));
+  else
+    app.use('/api/outbox', (_req, _res, next) =>
+      next(new HttpError(404, 'not_found', 'The outbox exists only while the local mail sink is in use (no SMTP_URL)')),
+    );
 
   const api = express.Router();
   api.use(requireUser(auth));

@@ -7,6 +7,7 @@ export default defineConfig({
     include: ['tests/**/*.test.ts'],
     exclude: ['tests/e2e/**', 'node_modules/**'],
     environment: 'node',
+    globalSetup: ['tests/support/global-setup.ts'],
     testTimeout: 30_000,
     hookTimeout: 60_000,
   },
