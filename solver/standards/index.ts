@@ -1,0 +1,2 @@
+// Voltage standards the results are judged against.
+export * from './voltage-ranges';
