@@ -1,6 +1,18 @@
 // The database schema: better-auth's four tables (written by hand from its documented model), then Phasewright's own.
 import { relations, sql } from 'drizzle-orm';
-import { boolean, index, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import {
+  bigint,
+  bigserial,
+  boolean,
+  customType,
+  index,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  uuid,
+} from 'drizzle-orm/pg-core';
 
 const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow();
 const updatedAt = () =>
@@ -137,3 +149,35 @@ export const projectMemberRelations = relations(projectMember, ({ one }) => ({
 export const sheetRelations = relations(sheet, ({ one }) => ({
   project: one(project, { fields: [sheet.projectId], references: [project.id] }),
 }));
+
+// A sheet's collaborative document: the latest snapshot (a Yjs state) and the updates written after it, in order.
+// Every update is stored before the server relays it, so a crash loses nothing any client was shown.
+const bytea = customType<{ data: Uint8Array; driverData: Uint8Array }>({
+  dataType: () => 'bytea',
+  fromDriver: (value) => new Uint8Array(value),
+  toDriver: (value) => value,
+});
+
+export const sheetSnapshot = pgTable('sheet_snapshot', {
+  sheetId: uuid('sheet_id')
+    .primaryKey()
+    .references(() => sheet.id, { onDelete: 'cascade' }),
+  state: bytea('state').notNull(),
+  // The last update sequence number folded into this snapshot.
+  throughSeq: bigint('through_seq', { mode: 'number' }).notNull(),
+  updatedAt: updatedAt(),
+});
+
+export const sheetUpdate = pgTable(
+  'sheet_update',
+  {
+    seq: bigserial('seq', { mode: 'number' }).primaryKey(),
+    sheetId: uuid('sheet_id')
+      .notNull()
+      .references(() => sheet.id, { onDelete: 'cascade' }),
+    update: bytea('update').notNull(),
+    userId: text('user_id'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('sheet_update_sheet_seq_idx').on(t.sheetId, t.seq)],
+);

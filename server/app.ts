@@ -18,6 +18,9 @@ import { outboxRouter } from './api/outbox/router';
 import { projectsRouter } from './api/projects/router';
 import { projectSheetsRouter, sheetsRouter } from './api/sheets/router';
 import { webRouter } from './web';
+import { createDocumentStore } from './sync/document-store';
+import { RoomRegistry } from './sync/room-registry';
+import { attachSyncServer } from './sync/sync-server';
 
 export interface RunningServer {
   url: string;
@@ -26,6 +29,7 @@ export interface RunningServer {
   database: DatabaseHandle;
   auth: Auth;
   mailer: Mailer;
+  rooms: RoomRegistry;
   seeded: { email: string; role: string }[] | null;
   close(): Promise<void>;
 }
@@ -85,6 +89,8 @@ export async function startServer(
   app.use(errorHandler(log));
 
   const http = createHttpServer(app);
+  const rooms = new RoomRegistry(createDocumentStore(db), { log });
+  const sync = attachSyncServer(http, { db, auth, rooms, log });
   await new Promise<void>((resolve, reject) => {
     http.once('error', reject);
     http.listen(config.port, () => resolve());
@@ -98,10 +104,14 @@ export async function startServer(
     database,
     auth,
     mailer,
+    rooms,
     seeded,
     async close() {
-      await new Promise<void>((resolve) => http.close(() => resolve()));
-      http.closeAllConnections?.();
+      await sync.close();
+      await rooms.closeAll();
+      const closed = new Promise<void>((resolve) => http.close(() => resolve()));
+      http.closeAllConnections();
+      await closed;
       mailer.close();
       await sink?.close();
       await database.close();

@@ -40,6 +40,11 @@ export class TestClient {
     return { status: res.status, body: parsed as T, headers: res.headers };
   }
 
+  /** The Cookie header this client would send (for websocket upgrades). */
+  cookieHeader(): string {
+    return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
+  }
+
   get = <T = any>(path: string) => this.request<T>('GET', path);
   post = <T = any>(path: string, body?: unknown) => this.request<T>('POST', path, body ?? {});
   patch = <T = any>(path: string, body?: unknown) => this.request<T>('PATCH', path, body ?? {});

@@ -1,0 +1,266 @@
+// One sheet's live room: its Yjs document, the connected peers and their awareness, over the y-websocket protocol.
+//
+// Message flow (y-protocols): on join the server sends sync step 1 (its state vector) and the awareness states;
+// a client's step 1 is answered with step 2 (what it lacks). A writer's step 2 and update messages are stored in
+// the database first, then applied to the room's document, whose update event relays them to the other peers.
+// Because the document only ever holds stored updates, everything a peer is sent (relays and step 2 replies alike)
+// has already been written: a crash loses nothing anyone saw. A read-only peer's step 2 and updates are dropped.
+import * as Y from 'yjs';
+import * as decoding from 'lib0/decoding';
+import * as encoding from 'lib0/encoding';
+import * as syncProtocol from 'y-protocols/sync';
+import * as awarenessProtocol from 'y-protocols/awareness';
+import type { DocumentStore } from './document-store';
+import { stampAwarenessUpdate } from './awareness-stamp';
+
+export const MESSAGE_SYNC = 0;
+export const MESSAGE_AWARENESS = 1;
+export const MESSAGE_QUERY_AWARENESS = 3;
+
+export interface Peer {
+  user: { id: string; name: string };
+  canWrite: boolean;
+  clientIds: Set<number>;
+  send(message: Uint8Array): void;
+  close(code: number, reason: string): void;
+}
+
+interface Pending {
+  update: Uint8Array;
+  userId: string | null;
+  origin: Peer | null;
+  settle?: (error?: Error) => void;
+}
+
+export interface RoomOptions {
+  compactEvery?: number;
+  log?: (line: string) => void;
+  /** Brings a freshly loaded document up to the current format (runs as a server-side transaction when it changes). */
+  upgrade?: (doc: Y.Doc) => ((doc: Y.Doc) => void) | null;
+}
+
+export class Room {
+  readonly doc = new Y.Doc();
+  readonly awareness = new awarenessProtocol.Awareness(this.doc);
+  readonly peers = new Set<Peer>();
+  private pending: Pending[] = [];
+  private flushing: Promise<void> | null = null;
+  private waiters: (() => void)[] = [];
+  private lastSeq = 0;
+  private sinceCompaction = 0;
+  private readonly compactEvery: number;
+  private readonly log: (line: string) => void;
+
+  private constructor(
+    readonly sheetId: string,
+    private readonly store: DocumentStore,
+    options: RoomOptions,
+  ) {
+    this.compactEvery = options.compactEvery ?? 200;
+    this.log = options.log ?? (() => {});
+    this.awareness.setLocalState(null);
+    this.doc.on('update', (update: Uint8Array, origin: unknown) => {
+      if (origin === 'load') return;
+      this.broadcast(syncMessage((e) => syncProtocol.writeUpdate(e, update)), origin as Peer | null);
+    });
+    this.awareness.on('update', ({ added, updated, removed }: Record<string, number[]>) => {
+      const changed = [...added, ...updated, ...removed];
+      const payload = awarenessProtocol.encodeAwarenessUpdate(this.awareness, changed);
+      this.broadcast(awarenessMessage(payload), null);
+    });
+  }
+
+  static async load(sheetId: string, store: DocumentStore, options: RoomOptions = {}): Promise<Room> {
+    const room = new Room(sheetId, store, options);
+    const stored = await store.load(sheetId);
+    Y.transact(
+      room.doc,
+      () => {
+        if (stored.snapshot) Y.applyUpdate(room.doc, stored.snapshot, 'load');
+        for (const u of stored.updates) Y.applyUpdate(room.doc, u, 'load');
+      },
+      'load',
+    );
+    room.lastSeq = stored.lastSeq;
+    room.sinceCompaction = stored.updates.length;
+    const migrate = options.upgrade?.(room.doc);
+    if (migrate) await room.transact(migrate, null);
+    return room;
+  }
+
+  join(peer: Peer): void {
+    this.peers.add(peer);
+    peer.send(syncMessage((e) => syncProtocol.writeSyncStep1(e, this.doc)));
+    const states = [...this.awareness.getStates().keys()];
+    if (states.length > 0) peer.send(awarenessMessage(awarenessProtocol.encodeAwarenessUpdate(this.awareness, states)));
+  }
+
+  leave(peer: Peer): void {
+    if (!this.peers.delete(peer)) return;
+    const ids = [...peer.clientIds].filter((id) => this.awareness.getStates().has(id));
+    if (ids.length > 0) awarenessProtocol.removeAwarenessStates(this.awareness, ids, null);
+  }
+
+  receive(peer: Peer, message: Uint8Array): void {
+    const decoder = decoding.createDecoder(message);
+    const type = decoding.readVarUint(decoder);
+    if (type === MESSAGE_SYNC) {
+      const step = decoding.readVarUint(decoder);
+      if (step === syncProtocol.messageYjsSyncStep1) {
+        const stateVector = decoding.readVarUint8Array(decoder);
+        peer.send(syncMessage((e) => syncProtocol.writeSyncStep2(e, this.doc, stateVector)));
+        return;
+      }
+      if (step === syncProtocol.messageYjsSyncStep2 || step === syncProtocol.messageYjsUpdate) {
+        const update = decoding.readVarUint8Array(decoder);
+        if (!peer.canWrite) {
+          this.log(`sync ${this.sheetId}: dropped an update from read-only ${peer.user.id}`);
+          return;
+        }
+        if (!isWellFormed(update)) {
+          this.log(`sync ${this.sheetId}: dropped a malformed update from ${peer.user.id}`);
+          return;
+        }
+        this.enqueue({ update, userId: peer.user.id, origin: peer });
+        return;
+      }
+      return;
+    }
+    if (type === MESSAGE_AWARENESS) {
+      const raw = decoding.readVarUint8Array(decoder);
+      const stamped = stampAwarenessUpdate(
+        raw,
+        { id: peer.user.id, name: peer.user.name, readOnly: !peer.canWrite },
+        (clientId) => peer.clientIds.has(clientId) || !this.ownedByOther(clientId, peer),
+      );
+      if (!stamped.update) return;
+      for (const id of stamped.clientIds) peer.clientIds.add(id);
+      awarenessProtocol.applyAwarenessUpdate(this.awareness, stamped.update, peer);
+      return;
+    }
+    if (type === MESSAGE_QUERY_AWARENESS) {
+      const states = [...this.awareness.getStates().keys()];
+      peer.send(awarenessMessage(awarenessProtocol.encodeAwarenessUpdate(this.awareness, states)));
+    }
+  }
+
+  /**
+   * A server-side edit (an import, a migration): run on a copy of the document so that the room's document
+   * still only holds stored updates; resolves once the edit is stored and relayed.
+   */
+  async transact(edit: (doc: Y.Doc) => void, userId: string | null): Promise<void> {
+    const scratch = new Y.Doc();
+    Y.applyUpdate(scratch, Y.encodeStateAsUpdate(this.doc));
+    const updates: Uint8Array[] = [];
+    scratch.on('update', (u: Uint8Array) => updates.push(u));
+    scratch.transact(() => edit(scratch), 'server');
+    scratch.destroy();
+    if (updates.length === 0) return;
+    await Promise.all(
+      updates.map(
+        (update) =>
+          new Promise<void>((resolve, reject) =>
+            this.enqueue({ update, userId, origin: null, settle: (err) => (err ? reject(err) : resolve()) }),
+          ),
+      ),
+    );
+  }
+
+  /** Resolves when everything received so far is stored and applied. */
+  flushed(): Promise<void> {
+    if (!this.flushing && this.pending.length === 0) return Promise.resolve();
+    return new Promise((resolve) => this.waiters.push(resolve));
+  }
+
+  /** Writes a fresh snapshot and drops the updates it folds in. */
+  async compact(): Promise<void> {
+    await this.flushed();
+    if (this.sinceCompaction === 0) return;
+    await this.store.compact(this.sheetId, Y.encodeStateAsUpdate(this.doc), this.lastSeq);
+    this.sinceCompaction = 0;
+  }
+
+  setAccess(userId: string, access: 'write' | 'read' | 'none'): void {
+    for (const peer of this.peers) {
+      if (peer.user.id !== userId) continue;
+      if (access === 'none') {
+        peer.close(4403, 'access removed');
+        this.leave(peer);
+      } else {
+        peer.canWrite = access === 'write';
+      }
+    }
+  }
+
+  destroy(): void {
+    this.awareness.destroy();
+    this.doc.destroy();
+  }
+
+  private ownedByOther(clientId: number, asker: Peer): boolean {
+    for (const p of this.peers) if (p !== asker && p.clientIds.has(clientId)) return true;
+    return false;
+  }
+
+  private enqueue(item: Pending): void {
+    this.pending.push(item);
+    if (!this.flushing) this.flushing = this.flushLoop();
+  }
+
+  // Stores queued updates a batch at a time: updates arriving during a write wait and go in the next one.
+  private async flushLoop(): Promise<void> {
+    try {
+      while (this.pending.length > 0) {
+        const batch = this.pending.splice(0);
+        try {
+          this.lastSeq = await this.store.append(this.sheetId, batch);
+        } catch (err) {
+          // Not stored means not applied and not relayed; the writers still hold their edits and resend on reconnect.
+          this.log(`sync ${this.sheetId}: could not store ${batch.length} update(s): ${String(err)}`);
+          for (const origin of new Set(batch.map((b) => b.origin))) origin?.close(1011, 'storage failed');
+          const failure = new Error('The sheet could not be saved; nothing was changed');
+          for (const item of batch) item.settle?.(failure);
+          continue;
+        }
+        this.sinceCompaction += batch.length;
+        for (const item of batch) Y.applyUpdate(this.doc, item.update, item.origin);
+        for (const item of batch) item.settle?.();
+        if (this.sinceCompaction >= this.compactEvery) {
+          await this.store.compact(this.sheetId, Y.encodeStateAsUpdate(this.doc), this.lastSeq);
+          this.sinceCompaction = 0;
+        }
+      }
+    } finally {
+      this.flushing = null;
+      const waiters = this.waiters.splice(0);
+      for (const w of waiters) w();
+    }
+  }
+
+  private broadcast(message: Uint8Array, except: Peer | null): void {
+    for (const p of this.peers) if (p !== except) p.send(message);
+  }
+}
+
+function syncMessage(write: (e: encoding.Encoder) => void): Uint8Array {
+  const e = encoding.createEncoder();
+  encoding.writeVarUint(e, MESSAGE_SYNC);
+  write(e);
+  return encoding.toUint8Array(e);
+}
+
+function awarenessMessage(update: Uint8Array): Uint8Array {
+  const e = encoding.createEncoder();
+  encoding.writeVarUint(e, MESSAGE_AWARENESS);
+  encoding.writeVarUint8Array(e, update);
+  return encoding.toUint8Array(e);
+}
+
+function isWellFormed(update: Uint8Array): boolean {
+  try {
+    Y.decodeUpdate(update);
+    return true;
+  } catch {
+    return false;
+  }
+}
