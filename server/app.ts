@@ -18,9 +18,11 @@ import { outboxRouter } from './api/outbox/router';
 import { projectsRouter } from './api/projects/router';
 import { projectSheetsRouter, sheetsRouter } from './api/sheets/router';
 import { webRouter } from './web';
+import { documentBodyParser, documentsRouter } from './api/documents/router';
 import { createDocumentStore } from './sync/document-store';
 import { RoomRegistry } from './sync/room-registry';
 import { attachSyncServer } from './sync/sync-server';
+import { migrateOnLoad } from './sync/migrate-on-load';
 
 export interface RunningServer {
   url: string;
@@ -57,6 +59,7 @@ export async function startServer(
     });
   }
 
+  const rooms = new RoomRegistry(createDocumentStore(db), { log, upgrade: migrateOnLoad });
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', false);
@@ -66,6 +69,7 @@ export async function startServer(
 
   // better-auth reads its own body: mount it before express.json().
   app.all('/api/auth/{*any}', toNodeHandler(auth));
+  app.put('/api/sheets/:sheetId/document', documentBodyParser);
   app.use(express.json({ limit: '1mb' }));
 
   app.get('/api/health', (_req, res) => {
@@ -80,8 +84,9 @@ export async function startServer(
   const api = express.Router();
   api.use(requireUser(auth));
   api.use('/projects/:projectId/sheets', projectSheetsRouter(db));
-  api.use('/projects/:projectId/members', membersRouter(db));
+  api.use('/projects/:projectId/members', membersRouter(db, rooms));
   api.use('/projects', projectsRouter(db));
+  api.use('/sheets', documentsRouter(db, rooms));
   api.use('/sheets', sheetsRouter(db));
   app.use('/api', (req, res, next) => (req.path === '/health' ? next() : api(req, res, next)));
   app.use('/api', apiNotFound);
@@ -89,7 +94,6 @@ export async function startServer(
   app.use(errorHandler(log));
 
   const http = createHttpServer(app);
-  const rooms = new RoomRegistry(createDocumentStore(db), { log });
   const sync = attachSyncServer(http, { db, auth, rooms, log });
   await new Promise<void>((resolve, reject) => {
     http.once('error', reject);

@@ -1,0 +1,115 @@
+// The sheet's commands: each one is one Yjs transaction carrying the caller's origin, so undo tracks only the
+// caller's own edits and listeners can tell local from remote changes.
+import * as Y from 'yjs';
+import type { Connection, SheetElement, SheetSettings, WhatIfChange } from '../../shared/sheet';
+import { newId } from './ids';
+import { collection, sheetMeta, settingsMap, type Collection } from './sheet-doc';
+import { setAtPath, toY, type Plain } from './y-values';
+
+type WithOptionalId<T> = T extends unknown ? Omit<T, 'id'> & { id?: string } : never;
+export type NewElement = WithOptionalId<Partial<SheetElement> & Pick<SheetElement, 'kind'>> & Record<string, unknown>;
+export type NewConnection = Omit<Connection, 'id'> & { id?: string };
+
+const plain = (v: unknown) => JSON.parse(JSON.stringify(v)) as Record<string, Plain>;
+
+export class SheetCommands {
+  constructor(
+    readonly doc: Y.Doc,
+    readonly origin: object = {},
+  ) {}
+
+  private run<T>(edit: () => T): T {
+    let out!: T;
+    this.doc.transact(() => {
+      out = edit();
+    }, this.origin);
+    return out;
+  }
+
+  renameSheet(name: string): void {
+    this.run(() => sheetMeta(this.doc).set('name', name));
+  }
+
+  setSetting<K extends keyof SheetSettings>(key: K, value: SheetSettings[K]): void {
+    this.run(() => settingsMap(this.doc).set(key, value as unknown));
+  }
+
+  addElement(element: NewElement): string {
+    const id = element.id ?? newId(element.kind);
+    this.run(() => collection(this.doc, 'elements').set(id, toY({ ...plain(element), id }) as Y.Map<unknown>));
+    return id;
+  }
+
+  /** Moves several elements in one transaction (the end of one drag). */
+  moveElements(moves: { id: string; x: number; y: number }[]): void {
+    this.run(() => {
+      const elements = collection(this.doc, 'elements');
+      for (const m of moves) {
+        const el = elements.get(m.id);
+        if (!el) continue; // deleted meanwhile by a colleague
+        el.set('x', m.x);
+        el.set('y', m.y);
+      }
+    });
+  }
+
+  /** Sets one field (a path of keys, e.g. ['conductors', 'N', 'open']) of an element, connection or what-if. */
+  setField(where: Collection, id: string, path: readonly string[], value: Plain | undefined): boolean {
+    return this.run(() => {
+      const entry = collection(this.doc, where).get(id);
+      if (!entry || path.length === 0 || path[0] === 'id') return false;
+      setAtPath(entry, path, value);
+      return true;
+    });
+  }
+
+  /** Deletes elements and every connection that lands on them. What-if changes that name them are left to readers. */
+  deleteElements(ids: readonly string[]): void {
+    const gone = new Set(ids);
+    this.run(() => {
+      const elements = collection(this.doc, 'elements');
+      for (const id of ids) elements.delete(id);
+      const connections = collection(this.doc, 'connections');
+      for (const [cid, c] of [...connections.entries()]) {
+        const from = (c.get('from') as Y.Map<unknown> | undefined)?.get('elementId');
+        const to = (c.get('to') as Y.Map<unknown> | undefined)?.get('elementId');
+        if (gone.has(from as string) || gone.has(to as string)) connections.delete(cid);
+      }
+    });
+  }
+
+  connect(connection: NewConnection): string {
+    const id = connection.id ?? newId('conn');
+    this.run(() => collection(this.doc, 'connections').set(id, toY({ ...plain(connection), id }) as Y.Map<unknown>));
+    return id;
+  }
+
+  disconnect(connectionId: string): void {
+    this.run(() => collection(this.doc, 'connections').delete(connectionId));
+  }
+
+  addWhatIf(name: string, id = newId('whatif')): string {
+    this.run(() => collection(this.doc, 'whatIfs').set(id, toY({ id, name, changes: {} }) as Y.Map<unknown>));
+    return id;
+  }
+
+  removeWhatIf(id: string): void {
+    this.run(() => collection(this.doc, 'whatIfs').delete(id));
+  }
+
+  addChange(whatIfId: string, change: WhatIfChange, changeId = newId('change')): string | null {
+    return this.run(() => {
+      const w = collection(this.doc, 'whatIfs').get(whatIfId);
+      if (!w) return null;
+      setAtPath(w, ['changes', changeId], plain(change));
+      return changeId;
+    });
+  }
+
+  removeChange(whatIfId: string, changeId: string): void {
+    this.run(() => {
+      const changes = collection(this.doc, 'whatIfs').get(whatIfId)?.get('changes');
+      if (changes instanceof Y.Map) changes.delete(changeId);
+    });
+  }
+}

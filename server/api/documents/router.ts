@@ -1,0 +1,51 @@
+// /api/sheets/:sheetId/document: the sheet's JSON view, derived from its live room document, and imports (PUT),
+// applied as one server-side transaction in the room. Nothing writes sheet content around the room.
+import express, { Router } from 'express';
+import { z } from 'zod';
+import { idParam } from '../../../shared/api';
+import { readSheet } from '../../../shared/sheet';
+import type { Database } from '../../../db/client';
+import { docToJson, writeSheet } from '../../../editor/document/sheet-doc';
+import { badRequest } from '../../http/errors';
+import { currentUser } from '../../http/session';
+import { valid, validate } from '../../http/validate';
+import type { RoomRegistry } from '../../sync/room-registry';
+import { requireSheetRole } from '../access';
+
+const bySheet = { params: z.object({ sheetId: idParam }) };
+
+/** Sheets can be large: their import gets its own body limit, parsed before the API's default one. */
+export const documentBodyParser = express.json({ limit: '25mb' });
+
+export function documentsRouter(db: Database, rooms: RoomRegistry): Router {
+  const r = Router();
+
+  r.get('/:sheetId/document', validate(bySheet), async (_req, res) => {
+    const { sheetId } = valid(res, bySheet).params;
+    const { sheet } = await requireSheetRole(db, sheetId, currentUser(res).id, 'viewer');
+    const json = await rooms.withRoom(sheetId, async (room) => docToJson(room.doc));
+    if (!json.name) json.name = sheet.name;
+    res.json(json);
+  });
+
+  r.put('/:sheetId/document', validate(bySheet), async (req, res) => {
+    const user = currentUser(res);
+    const { sheetId } = valid(res, bySheet).params;
+    await requireSheetRole(db, sheetId, user.id, 'editor');
+    const read = readSheet(req.body);
+    if (!read.ok) {
+      throw badRequest(
+        'The sheet is not valid; nothing was changed',
+        read.issues.map((i) => ({ path: i.path ? `body.${i.path}` : 'body', message: i.message })),
+      );
+    }
+    await rooms.withRoom(sheetId, (room) => room.transact((doc) => writeSheet(doc, read.sheet), user.id));
+    res.json({
+      ok: true,
+      warnings: read.warnings,
+      ...(read.migratedFrom !== undefined ? { migratedFrom: read.migratedFrom } : {}),
+    });
+  });
+
+  return r;
+}
