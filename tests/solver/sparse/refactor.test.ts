@@ -30,7 +30,7 @@ describe('refactorization with the same analysis', () => {
     }
   });
 
-  it('still pivots correctly when the new values zero some diagonals', () => {
+  it('still pivots correctly when the new values make some diagonals far too small', () => {
     const rng = mulberry32(52);
     const a = randomNetwork(rng, { nodes: 80, topology: 'radial' });
     const sym = analyse(a);
@@ -38,8 +38,9 @@ describe('refactorization with the same analysis', () => {
     for (let j = 0; j < a.n; j += 9) {
       for (let p = next.colPtr[j]; p < next.colPtr[j + 1]; p++) {
         if (next.rowIdx[p] === j) {
-          next.re[p] = 0;
-          next.im[p] = 0;
+          // (exact zeros can make a random tree singular: two zero-diagonal leaves on one bus)
+          next.re[p] *= 1e-3;
+          next.im[p] *= 1e-3;
         }
       }
     }
