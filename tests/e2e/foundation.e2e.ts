@@ -1,6 +1,7 @@
 // The foundation in a real browser: make an account, sign out and in, make a project and a sheet, rename the
 // sheet, reset a password through the local outbox, and the demo users' view of "Larkspur Row" on a phone
 // (390x844) and a wide screen (1440x900), in the light theme and once in the dark one.
+import { randomUUID } from 'node:crypto';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import {
   assert,
@@ -230,9 +231,13 @@ async function phoneJourney(browser: Browser, server: ServerProcess) {
 async function wideJourney(browser: Browser, server: ServerProcess) {
   const { context, page, problems } = await newPage(browser, WIDE);
 
-  await page.goto(`${server.url}/sign-in`);
+  // A signed-out deep link into the app lands on sign-in; an unknown address gets the not-found page.
+  await page.goto(`${server.url}/projects/${randomUUID()}`);
   await seeTestId(page, 'sign-in-screen');
+  assert(new URL(page.url()).pathname === '/sign-in', `a signed-out deep link ended on ${page.url()}`);
   await screenshot(page, 'wide-sign-in');
+  await page.goto(`${server.url}/no-such-page`);
+  await seeText(page, 'Nothing at this address');
 
   // The owner: list and detail side by side; deleting a sheet asks first, and Cancel keeps it.
   await signIn(page, server.url, 'owner@example.com', DEMO_PASSWORD);
@@ -254,6 +259,10 @@ async function wideJourney(browser: Browser, server: ServerProcess) {
   await el(page, 'delete-sheet-dialog-cancel').click();
   await notSeeText(page, 'Delete this sheet?');
   await seeText(page, 'Building distribution', { exact: true });
+  // A project that does not exist (or is not yours) says so instead of failing.
+  await page.goto(`${server.url}/projects/${randomUUID()}`);
+  await seeTestId(page, 'project-missing');
+  await seeText(page, 'Project not found');
   await signOut(page);
 
   // The viewer sees the same project without controls that change it.

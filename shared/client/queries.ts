@@ -1,0 +1,213 @@
+// TanStack Query hooks over the API client and the auth client: one key scheme, and each change invalidates what
+// it makes stale (a new sheet changes the project's sheet list and the sheet count in the projects list).
+import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
+import type { ProjectCreateBody, ProjectPatchBody, SheetPatchBody, SheetCreateBody } from '../api';
+import { createApiClient, type ApiClient } from './api-client';
+import { resolveApiBaseUrl } from './api-base-url';
+import { auth } from './auth-client';
+
+let sharedApi: ApiClient | null = null;
+/** The app's API client, made on first use so that nothing reads `window` at import. */
+export function getApiClient(): ApiClient {
+  sharedApi ??= createApiClient({ baseUrl: resolveApiBaseUrl() });
+  return sharedApi;
+}
+
+export const queryKeys = {
+  session: ['session'] as const,
+  projects: ['projects'] as const,
+  project: (projectId: string) => ['projects', projectId] as const,
+  sheets: (projectId: string) => ['projects', projectId, 'sheets'] as const,
+  members: (projectId: string) => ['projects', projectId, 'members'] as const,
+  sheet: (sheetId: string) => ['sheets', sheetId] as const,
+  outbox: ['outbox'] as const,
+  health: ['health'] as const,
+};
+
+// Session
+
+export function useSession() {
+  return useQuery({ queryKey: queryKeys.session, queryFn: auth.getSession, staleTime: 60_000 });
+}
+
+export function useSignIn() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: auth.signIn,
+    onSuccess: () => client.invalidateQueries({ queryKey: queryKeys.session }),
+  });
+}
+
+export function useSignUp() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: auth.signUp,
+    onSuccess: () => client.invalidateQueries({ queryKey: queryKeys.session }),
+  });
+}
+
+/** Drops everything cached for the signed-in user, so the next user never sees it. */
+export function forgetSignedInData(client: QueryClient) {
+  client.setQueryData(queryKeys.session, null);
+  client.removeQueries({ predicate: (query) => query.queryKey[0] !== queryKeys.session[0] });
+}
+
+export function useSignOut() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: auth.signOut,
+    onSettled: () => forgetSignedInData(client),
+  });
+}
+
+export function useRequestPasswordReset() {
+  return useMutation({ mutationFn: auth.requestPasswordReset });
+}
+
+export function useResetPassword() {
+  return useMutation({ mutationFn: auth.resetPassword });
+}
+
+// Projects
+
+export function useProjects() {
+  return useQuery({
+    queryKey: queryKeys.projects,
+    queryFn: async () => (await getApiClient().listProjects()).projects,
+  });
+}
+
+export function useProject(projectId: string | undefined) {
+  return useQuery({
+    queryKey: queryKeys.project(projectId ?? ''),
+    queryFn: async () => (await getApiClient().getProject(projectId!)).project,
+    enabled: !!projectId,
+  });
+}
+
+export function useCreateProject() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async (body: ProjectCreateBody) => (await getApiClient().createProject(body)).project,
+    onSuccess: (project) => {
+      client.setQueryData(queryKeys.project(project.id), project);
+      return client.invalidateQueries({ queryKey: queryKeys.projects, exact: true });
+    },
+  });
+}
+
+export function useUpdateProject(projectId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async (body: ProjectPatchBody) => (await getApiClient().updateProject(projectId, body)).project,
+    onSuccess: (project) => {
+      client.setQueryData(queryKeys.project(project.id), project);
+      return client.invalidateQueries({ queryKey: queryKeys.projects, exact: true });
+    },
+  });
+}
+
+export function useDeleteProject() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async (projectId: string) => {
+      await getApiClient().deleteProject(projectId);
+      return projectId;
+    },
+    onSuccess: (projectId) => {
+      client.removeQueries({ queryKey: queryKeys.project(projectId) });
+      client.removeQueries({ queryKey: ['sheets'], predicate: (q) => sheetQueryBelongsTo(q.state.data, projectId) });
+      return client.invalidateQueries({ queryKey: queryKeys.projects, exact: true });
+    },
+  });
+}
+
+function sheetQueryBelongsTo(data: unknown, projectId: string): boolean {
+  return (data as { sheet?: { projectId?: string } } | undefined)?.sheet?.projectId === projectId;
+}
+
+// Sheets
+
+export function useSheets(projectId: string | undefined) {
+  return useQuery({
+    queryKey: queryKeys.sheets(projectId ?? ''),
+    queryFn: async () => (await getApiClient().listSheets(projectId!)).sheets,
+    enabled: !!projectId,
+  });
+}
+
+export function useSheet(sheetId: string | undefined) {
+  return useQuery({
+    queryKey: queryKeys.sheet(sheetId ?? ''),
+    queryFn: () => getApiClient().getSheet(sheetId!),
+    enabled: !!sheetId,
+  });
+}
+
+/** A sheet change alters its project's sheet list and the counts in the projects list. */
+function invalidateSheetLists(client: QueryClient, projectId: string) {
+  return Promise.all([
+    client.invalidateQueries({ queryKey: queryKeys.sheets(projectId) }),
+    client.invalidateQueries({ queryKey: queryKeys.project(projectId), exact: true }),
+    client.invalidateQueries({ queryKey: queryKeys.projects, exact: true }),
+  ]);
+}
+
+export function useCreateSheet(projectId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async (body: SheetCreateBody) => (await getApiClient().createSheet(projectId, body)).sheet,
+    onSuccess: () => invalidateSheetLists(client, projectId),
+  });
+}
+
+export function useRenameSheet(projectId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async ({ sheetId, ...body }: SheetPatchBody & { sheetId: string }) =>
+      (await getApiClient().renameSheet(sheetId, body)).sheet,
+    onSuccess: (sheet) =>
+      Promise.all([
+        invalidateSheetLists(client, projectId),
+        client.invalidateQueries({ queryKey: queryKeys.sheet(sheet.id) }),
+      ]),
+  });
+}
+
+export function useDeleteSheet(projectId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async (sheetId: string) => {
+      await getApiClient().deleteSheet(sheetId);
+      return sheetId;
+    },
+    onSuccess: (sheetId) => {
+      client.removeQueries({ queryKey: queryKeys.sheet(sheetId) });
+      return invalidateSheetLists(client, projectId);
+    },
+  });
+}
+
+// Members, server and mail
+
+/** The server's health, which also says whether mail goes to the local outbox. */
+export function useHealth() {
+  return useQuery({ queryKey: queryKeys.health, queryFn: () => getApiClient().health(), staleTime: 5 * 60_000 });
+}
+
+export function useMembers(projectId: string | undefined) {
+  return useQuery({
+    queryKey: queryKeys.members(projectId ?? ''),
+    queryFn: async () => (await getApiClient().listMembers(projectId!)).members,
+    enabled: !!projectId,
+  });
+}
+
+export function useOutbox() {
+  return useQuery({
+    queryKey: queryKeys.outbox,
+    queryFn: async () => (await getApiClient().listOutbox()).messages,
+    // New mail shows up by itself; a missing outbox (404) is final, so stop asking.
+    refetchInterval: (query) => (query.state.status === 'error' ? false : 5_000),
+  });
+}
