@@ -1,5 +1,5 @@
-// Durable storage of sheet documents: a snapshot plus the updates after it. Writes are grouped per call
-// (one transaction for a batch) and compaction replaces the snapshot and drops folded updates in one transaction.
+// Durable storage of sheet documents: a snapshot plus the updates after it. Appends are grouped (across rooms)
+// into single INSERT statements; compaction replaces the snapshot and drops folded updates in one transaction.
 import { and, asc, eq, gt, lte } from 'drizzle-orm';
 import type { Database } from '../../db/client';
 import { sheet, sheetSnapshot, sheetUpdate } from '../../db/schema';
@@ -12,13 +12,48 @@ export interface StoredDocument {
 
 export interface DocumentStore {
   load(sheetId: string): Promise<StoredDocument>;
-  /** Appends updates in order in one transaction and touches the sheet's updated-at and updated-by. */
+  /** Appends updates in order (one statement, so all or none) and returns the last sequence number. */
   append(sheetId: string, entries: { update: Uint8Array; userId: string | null }[]): Promise<number>;
+  /** Records who edited the sheet last and when (kept apart from append: it costs more than the insert itself). */
+  touch(sheetId: string, userId: string | null, at: Date): Promise<void>;
   /** Replaces the snapshot with `state`, which includes every update up to `throughSeq`, and deletes those updates. */
   compact(sheetId: string, state: Uint8Array, throughSeq: number): Promise<void>;
 }
 
+// Appends from every room that arrive while a write is in flight go into the next single multi-row INSERT:
+// PGlite runs one statement at a time, so grouping across rooms is what keeps many busy sheets fast.
+function groupedAppender(db: Database) {
+  type Waiting = { sheetId: string; entries: { update: Uint8Array; userId: string | null }[]; resolve: (seq: number) => void; reject: (e: unknown) => void };
+  let queue: Waiting[] = [];
+  let writing = false;
+  const drain = async () => {
+    writing = true;
+    while (queue.length > 0) {
+      const group = queue;
+      queue = [];
+      try {
+        const rows = await db
+          .insert(sheetUpdate)
+          .values(group.flatMap((w) => w.entries.map((e) => ({ sheetId: w.sheetId, update: e.update, userId: e.userId }))))
+          .returning({ seq: sheetUpdate.seq, sheetId: sheetUpdate.sheetId });
+        const last = new Map<string, number>();
+        for (const r of rows) last.set(r.sheetId, Math.max(last.get(r.sheetId) ?? 0, r.seq));
+        for (const w of group) w.resolve(last.get(w.sheetId) ?? 0);
+      } catch (err) {
+        for (const w of group) w.reject(err);
+      }
+    }
+    writing = false;
+  };
+  return (sheetId: string, entries: Waiting['entries']) =>
+    new Promise<number>((resolve, reject) => {
+      queue.push({ sheetId, entries, resolve, reject });
+      if (!writing) void drain();
+    });
+}
+
 export function createDocumentStore(db: Database): DocumentStore {
+  const appendGrouped = groupedAppender(db);
   return {
     async load(sheetId) {
       const [snap] = await db.select().from(sheetSnapshot).where(eq(sheetSnapshot.sheetId, sheetId)).limit(1);
@@ -37,17 +72,14 @@ export function createDocumentStore(db: Database): DocumentStore {
 
     async append(sheetId, entries) {
       if (entries.length === 0) return 0;
-      return db.transaction(async (tx) => {
-        const rows = await tx
-          .insert(sheetUpdate)
-          .values(entries.map((e) => ({ sheetId, update: e.update, userId: e.userId })))
-          .returning({ seq: sheetUpdate.seq });
-        const lastAuthor = entries.findLast((e) => e.userId)?.userId;
-        const touch: { updatedAt: Date; updatedBy?: string } = { updatedAt: new Date() };
-        if (lastAuthor) touch.updatedBy = lastAuthor;
-        await tx.update(sheet).set(touch).where(eq(sheet.id, sheetId));
-        return Math.max(...rows.map((r) => r.seq));
-      });
+      return appendGrouped(sheetId, entries);
+    },
+
+    async touch(sheetId, userId, at) {
+      await db
+        .update(sheet)
+        .set(userId ? { updatedAt: at, updatedBy: userId } : { updatedAt: at })
+        .where(eq(sheet.id, sheetId));
     },
 
     async compact(sheetId, state, throughSeq) {

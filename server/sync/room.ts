@@ -2,7 +2,7 @@
 //
 // Message flow (y-protocols): on join the server sends sync step 1 (its state vector) and the awareness states;
 // a client's step 1 is answered with step 2 (what it lacks). A writer's step 2 and update messages are stored in
-// the database first, then applied to the room's document, whose update event relays them to the other peers.
+// the database first, then applied to the room's document and relayed to the peers, a stored batch at a time.
 // Because the document only ever holds stored updates, everything a peer is sent (relays and step 2 replies alike)
 // has already been written: a crash loses nothing anyone saw. A read-only peer's step 2 and updates are dropped.
 import * as Y from 'yjs';
@@ -16,6 +16,7 @@ import { stampAwarenessUpdate } from './awareness-stamp';
 export const MESSAGE_SYNC = 0;
 export const MESSAGE_AWARENESS = 1;
 export const MESSAGE_QUERY_AWARENESS = 3;
+const TOUCH_EVERY_MS = 2000;
 
 export interface Peer {
   user: { id: string; name: string };
@@ -47,6 +48,9 @@ export class Room {
   private flushing: Promise<void> | null = null;
   private waiters: (() => void)[] = [];
   private lastSeq = 0;
+  // Who edited last and when, written to the sheet's metadata at most every TOUCH_EVERY_MS and on compaction.
+  private lastEdit: { userId: string | null; at: Date } | null = null;
+  private lastTouchMs = 0;
   private sinceCompaction = 0;
   private readonly compactEvery: number;
   private readonly log: (line: string) => void;
@@ -59,10 +63,6 @@ export class Room {
     this.compactEvery = options.compactEvery ?? 200;
     this.log = options.log ?? (() => {});
     this.awareness.setLocalState(null);
-    this.doc.on('update', (update: Uint8Array, origin: unknown) => {
-      if (origin === 'load') return;
-      this.broadcast(syncMessage((e) => syncProtocol.writeUpdate(e, update)), origin as Peer | null);
-    });
     this.awareness.on('update', ({ added, updated, removed }: Record<string, number[]>) => {
       const changed = [...added, ...updated, ...removed];
       const payload = awarenessProtocol.encodeAwarenessUpdate(this.awareness, changed);
@@ -175,9 +175,18 @@ export class Room {
   /** Writes a fresh snapshot and drops the updates it folds in. */
   async compact(): Promise<void> {
     await this.flushed();
+    await this.touch();
     if (this.sinceCompaction === 0) return;
     await this.store.compact(this.sheetId, Y.encodeStateAsUpdate(this.doc), this.lastSeq);
     this.sinceCompaction = 0;
+  }
+
+  private async touch(): Promise<void> {
+    if (!this.lastEdit) return;
+    const edit = this.lastEdit;
+    this.lastEdit = null;
+    this.lastTouchMs = Date.now();
+    await this.store.touch(this.sheetId, edit.userId, edit.at).catch((err) => this.log(`sync ${this.sheetId}: touch failed: ${String(err)}`));
   }
 
   setAccess(userId: string, access: 'write' | 'read' | 'none'): void {
@@ -224,7 +233,10 @@ export class Room {
         }
         this.sinceCompaction += batch.length;
         for (const item of batch) Y.applyUpdate(this.doc, item.update, item.origin);
+        this.relay(batch);
         for (const item of batch) item.settle?.();
+        this.lastEdit = { userId: batch.findLast((b) => b.userId)?.userId ?? this.lastEdit?.userId ?? null, at: new Date() };
+        if (Date.now() - this.lastTouchMs >= TOUCH_EVERY_MS) await this.touch();
         if (this.sinceCompaction >= this.compactEvery) {
           await this.store.compact(this.sheetId, Y.encodeStateAsUpdate(this.doc), this.lastSeq);
           this.sinceCompaction = 0;
@@ -235,6 +247,15 @@ export class Room {
       const waiters = this.waiters.splice(0);
       for (const w of waiters) w();
     }
+  }
+
+  // One message per stored batch, encoded once and sent to every peer: a peer that wrote part of the batch
+  // receives its own edits back too, which Yjs ignores, and that costs far less than a message per update per peer.
+  private relay(batch: Pending[]): void {
+    const update = batch.length === 1 ? batch[0].update : Y.mergeUpdates(batch.map((b) => b.update));
+    const origins = new Set(batch.map((b) => b.origin));
+    const soleOrigin = origins.size === 1 ? [...origins][0] : null;
+    this.broadcast(syncMessage((e) => syncProtocol.writeUpdate(e, update)), soleOrigin);
   }
 
   private broadcast(message: Uint8Array, except: Peer | null): void {

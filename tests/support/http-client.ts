@@ -1,5 +1,4 @@
-// A small cookie-keeping HTTP client for API tests: one instance is one browser (one session).
-import { expect } from 'vitest';
+// A small cookie-keeping HTTP client for API tests and benchmarks: one instance is one browser (one session).
 
 export interface Reply<T = any> {
   status: number;
@@ -52,7 +51,7 @@ export class TestClient {
 
   async signUp(email: string, password = 'correct-horse-battery', name = email.split('@')[0]) {
     const r = await this.post('/api/auth/sign-up/email', { email, password, name });
-    expect(r.status, JSON.stringify(r.body)).toBe(200);
+    if (r.status !== 200) throw new Error(`sign-up of ${email} failed: ${r.status} ${JSON.stringify(r.body)}`);
     return r.body.user as { id: string; email: string; name: string };
   }
 

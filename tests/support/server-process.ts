@@ -11,14 +11,17 @@ export interface ServerProcess {
 
 const root = path.resolve(__dirname, '../..');
 
-export async function spawnServer(env: Record<string, string>, port: number): Promise<ServerProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
+export async function spawnServer(env: Record<string, string>, port: number, nodeArgs: string[] = []): Promise<ServerProcess> {
+  const child = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', 'server/main.ts'], {
     cwd: root,
     env: { ...process.env, PORT: String(port), SEED_DEMO: 'false', ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let out = '';
-  child.stdout!.on('data', (d) => (out += d));
+  child.stdout!.on('data', (d) => {
+    out += d;
+    if (process.env.PW_TRACE) process.stdout.write(d);
+  });
   child.stderr!.on('data', (d) => (out += d));
   const url = `http://localhost:${port}`;
   const started = Date.now();
