@@ -29,7 +29,7 @@ export interface ServerConfig {
   seedDemo: boolean;
 }
 
-export function readConfig(source: NodeJS.ProcessEnv = process.env): ServerConfig {
+export function readConfig(source: Record<string, string | undefined> = process.env): ServerConfig {
   const parsed = env.safeParse(source);
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);

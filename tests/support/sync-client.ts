@@ -13,7 +13,7 @@ export interface SyncClient {
 
 export function cookieWebSocket(cookie: string): typeof WebSocket {
   return class extends WebSocket {
-    constructor(address: string | URL, protocols?: string | string[]) {
+    constructor(address: string, protocols?: string | string[]) {
       super(address, protocols, { headers: { cookie } });
     }
   } as typeof WebSocket;
