@@ -22,5 +22,6 @@ for (const file of files) {
     failed.push(file);
   }
 }
-console.log(`[e2e] ${files.length - failed.length} of ${files.length} passed`);
+// The plain closing line CI reads: "N passed, N failed".
+console.log(`e2e: ${files.length - failed.length} passed, ${failed.length} failed`);
 process.exit(failed.length > 0 ? 1 : 0);
