@@ -115,3 +115,14 @@ describe('old format versions', () => {
     expect(validateSheet(view.body).ok).toBe(true);
   });
 });
+
+describe('a new sheet', () => {
+  it('starts from an empty document that carries the current format version', async () => {
+    const sheetId = (await f.owner.post(`/api/projects/${f.projectId}/sheets`, { name: 'Fresh' })).body.sheet.id;
+    const editor = connectSheet(f.editor, sheetId);
+    await editor.synced();
+    await eventually(() => editor.doc.getMap('sheet').get('formatVersion') === 1, 'format version in the document');
+    expect(editor.doc.getMap('elements').size).toBe(0);
+    editor.destroy();
+  });
+});
