@@ -1,5 +1,6 @@
 // Test helpers: a seeded generator, random power-network-like admittance matrices, and mathjs as a dense reference.
-import { complex, lusolve, type Complex } from 'mathjs';
+import * as math from 'mathjs';
+import { complex, lusolve, type Complex, type Matrix } from 'mathjs';
 import { matInverse, type ComplexMatrix } from '../../../solver/complex';
 import { ComplexTriplets, type BlockUpdate, type ComplexCsc } from '../../../solver/sparse';
 
@@ -200,4 +201,14 @@ export function openConductorUpdate(branch: FourWireBranch, conductor: number): 
     }
   }
   return { nodes, deltaRe, deltaIm };
+}
+
+// mathjs builds a SparseMatrix from CSC arrays at run time; its type declarations do not list the class.
+const SparseMatrixClass = (math as unknown as {
+  SparseMatrix: new (data: { values: unknown[]; index: number[]; ptr: number[]; size: number[] }) => Matrix;
+}).SparseMatrix;
+
+/** The pattern of a as a mathjs SparseMatrix holding the real parts (enough for mathjs's ordering). */
+export function toMathjsSparseReal(a: ComplexCsc): Matrix {
+  return new SparseMatrixClass({ values: Array.from(a.re), index: Array.from(a.rowIdx), ptr: Array.from(a.colPtr), size: [a.n, a.n] });
 }

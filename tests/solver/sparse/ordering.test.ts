@@ -1,8 +1,8 @@
 // Fill-reducing ordering: AMD against natural order on arrowhead and grid matrices, no fill on trees.
 import { describe, expect, it } from 'vitest';
-import { slu, SparseMatrix } from 'mathjs';
+import { slu } from 'mathjs';
 import { analyse, approximateMinimumDegree, ComplexTriplets, factor, nnzOf, symmetricAdjacency, type ComplexCsc } from '../../../solver/sparse';
-import { mulberry32, randomNetwork, seriesAdmittance, stampBranch, uniform } from './helpers';
+import { fourWireNetwork, mulberry32, randomNetwork, seriesAdmittance, stampBranch, toMathjsSparseReal, uniform } from './helpers';
 
 const fillOf = (a: ComplexCsc, ordering: 'amd' | 'natural' | Int32Array): number => {
   const lu = factor(analyse(a, { ordering }), a);
@@ -56,9 +56,7 @@ describe('approximate minimum degree', () => {
   it('fills no more than mathjs\'s own AMD ordering (order 1, on A+Aᵀ) does', () => {
     const rng = mulberry32(15);
     for (const a of [grid(30), randomNetwork(rng, { nodes: 600, topology: 'meshed' })]) {
-      // The pattern with real values: mathjs only needs it for its ordering.
-      const m = new SparseMatrix({ values: Array.from(a.re), index: Array.from(a.rowIdx), ptr: Array.from(a.colPtr), size: [a.n, a.n] });
-      const theirs = Int32Array.from((slu(m, 1, 0.1) as unknown as { q: number[] }).q);
+      const theirs = Int32Array.from((slu(toMathjsSparseReal(a), 1, 0.1) as unknown as { q: number[] }).q);
       // source: mathjs slu with order 1 (approximate minimum degree on A+Aᵀ) as an independent ordering
       expect(fillOf(a, 'amd')).toBeLessThanOrEqual(1.1 * fillOf(a, theirs));
     }
@@ -103,6 +101,18 @@ describe('approximate minimum degree', () => {
     // common practice, no source: without pivoting, L and Uᵀ have the Cholesky pattern of A (symmetric pattern)
     expect(lu.nnzL).toBe(sym.nnzLEstimate);
     expect(lu.nnzU).toBe(sym.nnzUEstimate);
+  });
+
+  it('counts fill per group of indistinguishable conductors exactly as node by node', () => {
+    const { a } = fourWireNetwork(mulberry32(16), 120, 12);
+    const grouped = analyse(a); // AMD's groups: the four conductors of a bus
+    const plain = analyse(a, { ordering: grouped.colOrder }); // the same order, counted node by node
+    // common practice, no source: indistinguishable nodes eliminated together share their column structure
+    expect(Array.from(grouped.colCounts)).toEqual(Array.from(plain.colCounts));
+    expect(Array.from(grouped.etreeParent)).toEqual(Array.from(plain.etreeParent));
+    const lu = factor(grouped, a);
+    expect(lu.offDiagonalPivots).toBe(0);
+    expect(lu.nnzL).toBe(grouped.nnzLEstimate);
   });
 
   it('returns a permutation for meshed graphs with dense rows', () => {
