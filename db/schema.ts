@@ -5,12 +5,15 @@ import {
   bigserial,
   boolean,
   customType,
+  doublePrecision,
   index,
+  integer,
   pgEnum,
   pgTable,
   primaryKey,
   text,
   timestamp,
+  uniqueIndex,
   uuid,
 } from 'drizzle-orm/pg-core';
 
@@ -28,6 +31,8 @@ export const user = pgTable('user', {
   email: text('email').notNull().unique(),
   emailVerified: boolean('email_verified').notNull().default(false),
   image: text('image'),
+  // better-auth's anonymous plugin: guests who opened a viewer link and gave a name to comment.
+  isAnonymous: boolean('is_anonymous').notNull().default(false),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
 });
@@ -181,3 +186,121 @@ export const sheetUpdate = pgTable(
   },
   (t) => [index('sheet_update_sheet_seq_idx').on(t.sheetId, t.seq)],
 );
+
+// Invitations to a project, sent by e-mail. The token is stored only as a hash; it works once and expires.
+export const invitation = pgTable(
+  'invitation',
+  {
+    id: uuid('id').primaryKey().default(sql`gen_random_uuid()`),
+    projectId: uuid('project_id')
+      .notNull()
+      .references(() => project.id, { onDelete: 'cascade' }),
+    email: text('email').notNull(),
+    role: roleEnum('role').notNull(),
+    tokenHash: text('token_hash').notNull().unique(),
+    invitedBy: text('invited_by').references(() => user.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    sentAt: timestamp('sent_at', { withTimezone: true }).notNull().defaultNow(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    acceptedAt: timestamp('accepted_at', { withTimezone: true }),
+    acceptedBy: text('accepted_by').references(() => user.id, { onDelete: 'set null' }),
+    withdrawnAt: timestamp('withdrawn_at', { withTimezone: true }),
+  },
+  (t) => [index('invitation_project_idx').on(t.projectId)],
+);
+
+// Who changed which membership, when: shown to owners as the project's activity.
+export const membershipEvent = pgTable(
+  'membership_event',
+  {
+    id: uuid('id').primaryKey().default(sql`gen_random_uuid()`),
+    projectId: uuid('project_id')
+      .notNull()
+      .references(() => project.id, { onDelete: 'cascade' }),
+    actorId: text('actor_id').references(() => user.id, { onDelete: 'set null' }),
+    action: text('action').notNull(),
+    subject: text('subject').notNull(),
+    role: roleEnum('role'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('membership_event_project_idx').on(t.projectId, t.createdAt)],
+);
+
+// Read-only links to one sheet. The token is long and random and stored only as a hash.
+export const viewerLink = pgTable(
+  'viewer_link',
+  {
+    id: uuid('id').primaryKey().default(sql`gen_random_uuid()`),
+    sheetId: uuid('sheet_id')
+      .notNull()
+      .references(() => sheet.id, { onDelete: 'cascade' }),
+    tokenHash: text('token_hash').notNull().unique(),
+    label: text('label').notNull().default(''),
+    createdBy: text('created_by').references(() => user.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }),
+    revokedAt: timestamp('revoked_at', { withTimezone: true }),
+  },
+  (t) => [index('viewer_link_sheet_idx').on(t.sheetId)],
+);
+
+// Pins: comments anchored to an element or a point of a sheet, numbered per sheet, with replies and attachments.
+export const pin = pgTable(
+  'pin',
+  {
+    id: uuid('id').primaryKey().default(sql`gen_random_uuid()`),
+    sheetId: uuid('sheet_id')
+      .notNull()
+      .references(() => sheet.id, { onDelete: 'cascade' }),
+    number: integer('number').notNull(),
+    elementId: text('element_id'),
+    x: doublePrecision('x').notNull().default(0),
+    y: doublePrecision('y').notNull().default(0),
+    authorId: text('author_id').references(() => user.id, { onDelete: 'set null' }),
+    body: text('body').notNull(),
+    createdAt: createdAt(),
+    resolvedAt: timestamp('resolved_at', { withTimezone: true }),
+    resolvedBy: text('resolved_by').references(() => user.id, { onDelete: 'set null' }),
+  },
+  (t) => [uniqueIndex('pin_sheet_number_idx').on(t.sheetId, t.number)],
+);
+
+export const pinReply = pgTable(
+  'pin_reply',
+  {
+    id: uuid('id').primaryKey().default(sql`gen_random_uuid()`),
+    pinId: uuid('pin_id')
+      .notNull()
+      .references(() => pin.id, { onDelete: 'cascade' }),
+    authorId: text('author_id').references(() => user.id, { onDelete: 'set null' }),
+    body: text('body').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('pin_reply_pin_idx').on(t.pinId, t.createdAt)],
+);
+
+export const pinAttachment = pgTable(
+  'pin_attachment',
+  {
+    id: uuid('id').primaryKey().default(sql`gen_random_uuid()`),
+    pinId: uuid('pin_id')
+      .notNull()
+      .references(() => pin.id, { onDelete: 'cascade' }),
+    uploadedBy: text('uploaded_by').references(() => user.id, { onDelete: 'set null' }),
+    fileName: text('file_name').notNull(),
+    mediaType: text('media_type').notNull(),
+    sizeBytes: integer('size_bytes').notNull(),
+    content: bytea('content').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('pin_attachment_pin_idx').on(t.pinId)],
+);
+
+// Per-person choices, such as whether pin e-mails are wanted.
+export const userPreference = pgTable('user_preference', {
+  userId: text('user_id')
+    .primaryKey()
+    .references(() => user.id, { onDelete: 'cascade' }),
+  pinEmails: boolean('pin_emails').notNull().default(true),
+  updatedAt: updatedAt(),
+});
