@@ -26,28 +26,45 @@ const TOPOLOGIES: Topology[] = ['radial', 'local-mesh', 'long-ties'];
 const DEFAULT_SIZES = [100, 251, 1_000, 10_000, 50_000];
 
 setFlagsFromString('--expose-gc');
-const collectGarbage = runInNewContext('gc') as () => void;
+const gcOnce = runInNewContext('gc') as () => void;
+// Array-buffer memory is released by a sweeper after the collection; a second pass settles the count.
+const collectGarbage = (): void => {
+  gcOnce();
+  gcOnce();
+};
 
 interface Timing {
   medianMs: number;
+  /** Median CPU time of this process (user + system): less sensitive to other work on a shared machine. */
+  cpuMedianMs: number;
   runs: number;
 }
 
-/** Warm-up, then repetitions within a time budget; returns the median and the last result. */
+const cpuMs = (): number => {
+  const u = process.cpuUsage();
+  return (u.user + u.system) / 1000;
+};
+
+const median = (values: number[]): number => [...values].sort((a, b) => a - b)[values.length >> 1];
+
+/** Warm-up, then repetitions within a time budget; returns the medians and the last result. */
 function measure<R>(fn: () => R, budgetMs: number, maxRuns = 31): { timing: Timing; result: R } {
   let t0 = performance.now();
+  let c0 = cpuMs();
   let result = fn(); // warm-up (also the only run when one takes longer than the budget)
   const first = performance.now() - t0;
-  if (first > budgetMs) return { timing: { medianMs: first, runs: 1 }, result };
+  if (first > budgetMs) return { timing: { medianMs: first, cpuMedianMs: cpuMs() - c0, runs: 1 }, result };
   const runs = Math.max(3, Math.min(maxRuns, Math.floor(budgetMs / Math.max(first, 0.01))));
-  const times: number[] = [];
+  const wall: number[] = [];
+  const cpu: number[] = [];
   for (let r = 0; r < runs; r++) {
     t0 = performance.now();
+    c0 = cpuMs();
     result = fn();
-    times.push(performance.now() - t0);
+    cpu.push(cpuMs() - c0);
+    wall.push(performance.now() - t0);
   }
-  times.sort((a, b) => a - b);
-  return { timing: { medianMs: times[times.length >> 1], runs }, result };
+  return { timing: { medianMs: median(wall), cpuMedianMs: median(cpu), runs }, result };
 }
 
 const SparseMatrix = (math as unknown as {
@@ -96,6 +113,8 @@ interface CaseResult {
   analyseMs: number;
   factorMs: number;
   solveMs: number;
+  /** analyse + factor + solve, CPU time medians. */
+  afsCpuMs: number;
   fill: number;
   luBytes: number;
   heapDeltaBytes: number;
@@ -127,17 +146,23 @@ function runCase(topology: Topology, buses: number): CaseResult {
   const { y, bRe, bIm } = built.result;
   const analysed = measure(() => analyse(y), budget);
   const sym: SymbolicLu = analysed.result;
-  // The first factorization doubles as the heap measurement (JS heap plus typed-array buffers it holds) and, when
+  // The first factorization doubles as the heap measurement (JS heap plus typed-array buffers it retains) and, when
   // one run exceeds the budget (long-range ties at 50,000 buses), as the only timed run.
   collectGarbage();
   const before = process.memoryUsage();
   let t0 = performance.now();
+  const c0 = cpuMs();
   const firstLu = factor(sym, y);
   const firstFactorMs = performance.now() - t0;
+  const firstFactorCpuMs = cpuMs() - c0;
+  collectGarbage(); // what the factors retain, without the call's transient workspaces
   const after = process.memoryUsage();
   const heapDeltaBytes = after.heapUsed + after.arrayBuffers - (before.heapUsed + before.arrayBuffers);
+  console.error("DBG", before.heapUsed/1e6, before.arrayBuffers/1e6, after.heapUsed/1e6, after.arrayBuffers/1e6, firstLu.bytes/1e6);
   const factored =
-    firstFactorMs > budget ? { timing: { medianMs: firstFactorMs, runs: 1 }, result: firstLu } : measure(() => factor(sym, y), budget);
+    firstFactorMs > budget
+      ? { timing: { medianMs: firstFactorMs, cpuMedianMs: firstFactorCpuMs, runs: 1 }, result: firstLu }
+      : measure(() => factor(sym, y), budget);
   const lu: NumericLu = factored.result;
   const solved = measure(() => solve(lu, bRe, bIm), budget);
   const x = solved.result;
@@ -152,6 +177,7 @@ function runCase(topology: Topology, buses: number): CaseResult {
   const checked = measure(() => blockResidual(y, update, resolved.result, bRe, bIm), budget);
 
   const oursMs = analysed.timing.medianMs + factored.timing.medianMs + solved.timing.medianMs;
+  const oursCpuMs = analysed.timing.cpuMedianMs + factored.timing.cpuMedianMs + solved.timing.cpuMedianMs;
   const prev = previous.get(topology);
   const unknowns = y.n;
 
@@ -177,7 +203,8 @@ function runCase(topology: Topology, buses: number): CaseResult {
   let mathjsDenseMs: number | undefined;
   const denseEstimate = prev?.denseMs !== undefined ? prev.denseMs * (unknowns / prev.unknowns) ** 3 : 0;
   if (unknowns > MATHJS_DENSE_MAX_UNKNOWNS) {
-    mathjsDenseText = `skipped (over ${MATHJS_DENSE_MAX_UNKNOWNS} unknowns${denseEstimate ? `, est. ${fmtEstimate(denseEstimate)}` : ''})`;
+    const hint = denseEstimate && denseEstimate < 86_400_000 ? `, est. ${fmtEstimate(denseEstimate)}` : '';
+    mathjsDenseText = `skipped (never above ${MATHJS_DENSE_MAX_UNKNOWNS} unknowns${hint})`;
   } else if (denseEstimate > MATHJS_BUDGET_MS) {
     mathjsDenseText = `skipped (over 10 s budget, est. ${fmtEstimate(denseEstimate)}, ${(denseEstimate / oursMs).toFixed(0)}×)`;
   } else {
@@ -206,6 +233,7 @@ function runCase(topology: Topology, buses: number): CaseResult {
     analyseMs: analysed.timing.medianMs,
     factorMs: factored.timing.medianMs,
     solveMs: solved.timing.medianMs,
+    afsCpuMs: oursCpuMs,
     fill: (lu.nnzL + lu.nnzU - y.n) / nnzOf(y),
     luBytes: lu.bytes,
     heapDeltaBytes,
@@ -257,7 +285,9 @@ function main(): void {
   console.log('residual check on base+Δ included; "first" includes building U by rows and the row sums of the base.');
   console.log('mathjs sparse = slu(A, order 1 (AMD on A+Aᵀ), threshold 0.1) + lusolve on the same complex matrix (mathjs slu');
   console.log('accepts Complex entries, so no real-valued stand-in is needed); mathjs dense = lusolve on the Complex[][] matrix.');
-  console.log('Ratios are mathjs time / our A+F+S time; "agree" is max |x_ours − x_mathjs| / max |x_mathjs|.\n');
+  console.log('Ratios are mathjs time / our A+F+S time; "agree" is max |x_ours − x_mathjs| / max |x_mathjs|. L+U MB = bytes of');
+  console.log('the factor arrays; kept MB = heap + array-buffer growth retained by one factorization (after GC). CPU time can');
+  console.log('exceed wall time: it includes V8\'s concurrent GC threads.\n');
 
   // Let the JIT compile every path on a mid-sized case before anything is timed.
   for (let round = 0; round < 3; round++) {
@@ -272,7 +302,7 @@ function main(): void {
   const all: CaseResult[] = [];
   for (const topology of TOPOLOGIES) {
     const rows: string[][] = [[
-      topology, 'unknowns', 'nnz(Y)', 'build', 'analyse', 'factor', 'solve', 'A+F+S', 'fill', 'L+U MB', 'heapΔ MB',
+      topology, 'unknowns', 'nnz(Y)', 'build', 'analyse', 'factor', 'solve', 'A+F+S', '(cpu)', 'fill', 'L+U MB', 'kept MB',
       're-solve', 'of it check', 'first', '÷(F+S)',
     ]];
     const mathRows: string[][] = [[`${topology} buses`, 'mathjs sparse slu+lusolve', 'mathjs dense lusolve']];
@@ -282,7 +312,7 @@ function main(): void {
       all.push(r);
       rows.push([
         String(buses), String(r.unknowns), String(r.nnz), fmtMs(r.buildMs), fmtMs(r.analyseMs), fmtMs(r.factorMs),
-        fmtMs(r.solveMs), fmtMs(r.analyseMs + r.factorMs + r.solveMs), r.fill.toFixed(2), mb(r.luBytes),
+        fmtMs(r.solveMs), fmtMs(r.analyseMs + r.factorMs + r.solveMs), fmtMs(r.afsCpuMs), r.fill.toFixed(2), mb(r.luBytes),
         mb(r.heapDeltaBytes), fmtMs(r.resolveMs), fmtMs(r.checkMs), fmtMs(r.resolveFirstMs), (r.resolveMs / (r.factorMs + r.solveMs)).toFixed(2),
       ]);
       mathRows.push([String(buses), r.mathjsSparse, r.mathjsDense]);
@@ -304,8 +334,11 @@ function main(): void {
   for (const t of ['radial', 'local-mesh'] as Topology[]) {
     const r10 = pick(t, 10_000);
     const r50 = pick(t, 50_000);
-    if (r10) console.log(`  ${t} 10,000 buses A+F+S ${fmtMs(afs(r10))} (target < 100 ms): ${afs(r10) < 100 ? 'met' : 'NOT met'}`);
-    if (r50) console.log(`  ${t} 50,000 buses A+F+S ${fmtMs(afs(r50))} (target < 1 s): ${afs(r50) < 1000 ? 'met' : 'NOT met'}`);
+    for (const [r, limit] of [[r10, 100], [r50, 1000]] as const) {
+      if (!r) continue;
+      const verdict = afs(r) < limit ? 'met' : r.afsCpuMs < limit ? 'NOT met in wall time, met in CPU time' : 'NOT met';
+      console.log(`  ${t} ${r.buses} buses A+F+S ${fmtMs(afs(r))} wall, ${fmtMs(r.afsCpuMs)} CPU (target < ${fmtMs(limit)}): ${verdict}`);
+    }
   }
   for (const t of TOPOLOGIES) {
     const r = pick(t, 251);
@@ -329,7 +362,11 @@ function main(): void {
   }
   for (const r of all.filter((c) => c.buses >= 1_000)) {
     const ratio = r.resolveMs / (r.factorMs + r.solveMs);
-    console.log(`  ${r.topology} ${r.buses} buses: single-opening re-solve ${ratio.toFixed(2)} of factor+solve (target ≤ 0.10): ${ratio <= 0.1 ? 'met' : 'NOT met'}`);
+    const withoutCheck = (r.resolveMs - r.checkMs) / (r.factorMs + r.solveMs);
+    console.log(
+      `  ${r.topology} ${r.buses} buses: single-opening re-solve ${ratio.toFixed(2)} of factor+solve ` +
+        `(${withoutCheck.toFixed(2)} without its residual check) (target ≤ 0.10): ${ratio <= 0.1 ? 'met' : 'NOT met'}`,
+    );
   }
   console.log(`\nTotal benchmark time ${((performance.now() - started) / 1000).toFixed(0)} s`);
 }

@@ -65,7 +65,6 @@ export function groupedEliminationStructure(
   g: AdjacencyGraph,
   principal: Int32Array,
   order: Int32Array,
-  orderInverse: Int32Array,
 ): EliminationStructure | null {
   const { n, ptr, adj } = g;
   // Groups numbered by first appearance in the order; each must occupy consecutive positions.
@@ -136,6 +135,5 @@ export function groupedEliminationStructure(
     }
     nnzFactor += (s * (s + 1)) / 2 + s * external[K];
   }
-  void orderInverse;
   return { parent, colCounts, nnzFactor };
 }

@@ -112,7 +112,8 @@ export function factor(sym: SymbolicLu, a: ComplexCsc, options: FactorOptions = 
     const col = q[k];
 
     // Pattern of L⁻¹·A(:,col): depth-first search from each row of the column through the columns of L.
-    // While factorising, rows of L are pivot-order row numbers (not yet pivot steps); an unpivoted row is a leaf.
+    // While factorising, rows are numbered by their place in the column order (row i as colOrderInverse[i]),
+    // becoming pivot steps at the end; a row not yet pivoted is a leaf of the search.
     let top = n;
     for (let p = aP[col]; p < aP[col + 1]; p++) {
       const start = rows[p];

@@ -54,7 +54,7 @@ export function analyse(a: ComplexCsc, options: AnalyseOptions = {}): SymbolicLu
     colOrderInverse[j] = k;
   }
   const { parent, colCounts, nnzFactor } =
-    (principal && groupedEliminationStructure(g, principal, colOrder, colOrderInverse)) ||
+    (principal && groupedEliminationStructure(g, principal, colOrder)) ||
     eliminationStructure(g, colOrder, colOrderInverse);
   return {
     n,

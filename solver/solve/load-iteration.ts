@@ -1,0 +1,284 @@
+// The load iteration: constant-impedance shares are in the matrix; constant-current and constant-power shares are
+// correction currents I_corr = I_wanted(V) − Y V, updated by fixed-point iteration (Anderson-accelerated) and
+// re-solved with the same factors; when that does not contract, Newton steps on the corrections with the same
+// factors (correction-newton.ts). Below the low-voltage switch a load turns to constant impedance.
+import type { Complex } from '../complex';
+import type { BuiltNetwork } from '../network/build-network';
+import type { LoadPart } from '../network/types';
+import type { LinearSolver } from '../linear-system';
+import type { PinClasses } from './classes';
+import type { AssembledSystem } from './assemble';
+import { AndersonMixer } from './anderson';
+import { elementVolts, newtonStep, transferMatrix, type Transfer } from './correction-newton';
+
+/** After this many changes of side of the low-voltage switch a load stays at constant impedance (no limit cycle). */
+const MAX_SWITCH_FLIPS = 4;
+/** Fixed-point passes tried before Newton on the corrections takes over. */
+const FIXED_POINT_PASSES = 12;
+/** Newton on the corrections needs one solve per load element and a dense system of twice their number. */
+const NEWTON_MAX_ELEMENTS = 300;
+
+export type LoadModel = 'constant-impedance' | 'constant-current' | 'constant-power' | 'mix';
+
+export interface PartModel {
+  model: LoadModel;
+  /** Turned to constant impedance by the low-voltage switch. */
+  switched: boolean;
+}
+
+export interface PinVoltages {
+  re: Float64Array;
+  im: Float64Array;
+}
+
+export type IterationOutcome =
+  | {
+      ok: true;
+      volts: PinVoltages;
+      /** The answer with every load at constant impedance (the first pass), for comparison under an open neutral. */
+      constantImpedanceVolts: PinVoltages;
+      corrections: Complex[];
+      models: PartModel[];
+      iterations: number;
+      /** Largest load current mismatch as a fraction of that load's rated current. */
+      mismatch: number;
+    }
+  | { ok: false; message: string; elementIds: string[] };
+
+export interface IterationOptions {
+  lowVoltageSwitchFraction: number;
+  tolerance: number;
+  maxIterations: number;
+}
+
+export function pinVoltages(network: BuiltNetwork, classes: PinClasses, system: AssembledSystem, x: { re: Float64Array; im: Float64Array }): PinVoltages {
+  const count = network.pins.length;
+  const re = new Float64Array(count);
+  const im = new Float64Array(count);
+  for (let pin = 0; pin < count; pin++) {
+    const cls = classes.classOf[pin];
+    re[pin] = classes.offsetRe[pin] + (cls < 0 ? 0 : system.scale[cls] * x.re[cls]);
+    im[pin] = classes.offsetIm[pin] + (cls < 0 ? 0 : system.scale[cls] * x.im[cls]);
+  }
+  return { re, im };
+}
+
+function baseModel(part: LoadPart): LoadModel {
+  const b = part.behaviour;
+  if (b.impedance >= 1) return 'constant-impedance';
+  if (b.current >= 1) return 'constant-current';
+  if (b.power >= 1) return 'constant-power';
+  return 'mix';
+}
+
+/** The current a load element wants at voltage v (p − q), given whether it has switched to constant impedance. */
+export function wantedCurrent(part: LoadPart, v: Complex, switched: boolean): Complex {
+  const yv = { re: part.y.re * v.re - part.y.im * v.im, im: part.y.re * v.im + part.y.im * v.re };
+  const mag = Math.hypot(v.re, v.im);
+  if (switched || mag <= 1e-9 * part.ratedVolts) return yv;
+  const { impedance, current, power } = part.behaviour;
+  const sConj = { re: part.ratedVa.re, im: -part.ratedVa.im };
+  // Constant current: |S|/Vrated at the load's own power-factor angle behind its terminal voltage.
+  const iCurrent = { re: (sConj.re * v.re - sConj.im * v.im) / (part.ratedVolts * mag), im: (sConj.re * v.im + sConj.im * v.re) / (part.ratedVolts * mag) };
+  // Constant power: conj(S / v) = conj(S) / conj(v).
+  const d = v.re * v.re + v.im * v.im;
+  const iPower = { re: (sConj.re * v.re - sConj.im * v.im) / d, im: (sConj.re * v.im + sConj.im * v.re) / d };
+  return {
+    re: impedance * yv.re + current * iCurrent.re + power * iPower.re,
+    im: impedance * yv.im + current * iCurrent.im + power * iPower.im,
+  };
+}
+
+interface PassResult {
+  next: Complex[];
+  residual: Complex[];
+  mismatch: number;
+  worst: number[];
+  switchedNow: boolean;
+}
+
+/** Judges every load element at its voltage: the switch, the current it wants, and the mismatch. */
+function evaluateParts(
+  parts: LoadPart[],
+  volts: Complex[],
+  corrections: Complex[],
+  models: PartModel[],
+  flips: Int32Array,
+  ratedAmps: number[],
+  options: IterationOptions,
+): PassResult {
+  let mismatch = 0;
+  let switchedNow = false;
+  const worst: number[] = [];
+  const next: Complex[] = [];
+  const residual: Complex[] = [];
+  parts.forEach((part, k) => {
+    const v = volts[k];
+    const model = models[k];
+    if (model.model !== 'constant-impedance' && flips[k] < MAX_SWITCH_FLIPS) {
+      // Re-judged every pass (an early iterate may dip below the switch); a load that keeps flipping stays switched.
+      const below = Math.hypot(v.re, v.im) < options.lowVoltageSwitchFraction * part.ratedVolts;
+      if (below !== model.switched) {
+        model.switched = below;
+        switchedNow = true;
+        flips[k]++;
+        if (flips[k] >= MAX_SWITCH_FLIPS) model.switched = true;
+      }
+    }
+    const wanted = wantedCurrent(part, v, model.switched);
+    const yv = { re: part.y.re * v.re - part.y.im * v.im, im: part.y.re * v.im + part.y.im * v.re };
+    const r = { re: wanted.re - yv.re - corrections[k].re, im: wanted.im - yv.im - corrections[k].im };
+    const m = ratedAmps[k] > 0 ? Math.hypot(r.re, r.im) / ratedAmps[k] : 0;
+    mismatch = Number.isFinite(m) ? Math.max(mismatch, m) : Infinity;
+    if (!(m <= options.tolerance)) worst.push(k);
+    next.push({ re: wanted.re - yv.re, im: wanted.im - yv.im });
+    residual.push(r);
+  });
+  return { next, residual, mismatch, worst, switchedNow };
+}
+
+function partVolts(parts: LoadPart[], volts: PinVoltages): Complex[] {
+  return parts.map((p) => ({ re: volts.re[p.p] - volts.re[p.q], im: volts.im[p.p] - volts.im[p.q] }));
+}
+
+export function iterateLoads(
+  network: BuiltNetwork,
+  classes: PinClasses,
+  system: AssembledSystem,
+  solver: LinearSolver,
+  options: IterationOptions,
+): IterationOutcome {
+  const parts = network.loads;
+  const P = parts.length;
+  let corrections: Complex[] = parts.map(() => ({ re: 0, im: 0 }));
+  const models: PartModel[] = parts.map((p) => ({ model: baseModel(p), switched: false }));
+  const ratedAmps = parts.map((p) => Math.hypot(p.ratedVa.re, p.ratedVa.im) / p.ratedVolts);
+  const flips = new Int32Array(P);
+  const mixer = new AndersonMixer(2 * P);
+  const weights = new Float64Array(2 * P);
+  ratedAmps.forEach((a, k) => (weights[2 * k] = weights[2 * k + 1] = a > 0 ? 1 / a : 1));
+
+  const solveWith = (c: Complex[]): PinVoltages | string => {
+    const bRe = system.rhsRe.slice();
+    const bIm = system.rhsIm.slice();
+    parts.forEach((part, k) => {
+      const corr = c[k];
+      if (corr.re === 0 && corr.im === 0) return;
+      // The correction flows p → q through the load: it is drawn from p and returned to q.
+      const cp = classes.classOf[part.p];
+      const cq = classes.classOf[part.q];
+      if (cp >= 0) {
+        bRe[cp] -= corr.re * system.scale[cp];
+        bIm[cp] -= corr.im * system.scale[cp];
+      }
+      if (cq >= 0) {
+        bRe[cq] += corr.re * system.scale[cq];
+        bIm[cq] += corr.im * system.scale[cq];
+      }
+    });
+    const solved = solver.solve(bRe, bIm);
+    if (!solved.ok) return `the network equations are singular (${solved.message})`;
+    if (solved.value.re.length !== classes.classCount) return 'the linear solve returned a vector of the wrong size';
+    return pinVoltages(network, classes, system, solved.value);
+  };
+  const failure = (message: string): IterationOutcome => ({ ok: false, message, elementIds: [] });
+
+  const first = solveWith(corrections);
+  if (typeof first === 'string') return failure(first);
+  const constantImpedanceVolts = first;
+  let volts = first;
+  let pass = evaluateParts(parts, partVolts(parts, volts), corrections, models, flips, ratedAmps, options);
+  let iteration = 1;
+  const done = (): IterationOutcome => ({ ok: true, volts, constantImpedanceVolts, corrections, models, iterations: iteration, mismatch: pass.mismatch });
+  if (pass.mismatch <= options.tolerance) return done();
+
+  // The fixed point, Anderson-accelerated; a change of switch state changes the map, so the history restarts.
+  const fixedPointLimit = P <= NEWTON_MAX_ELEMENTS ? Math.min(FIXED_POINT_PASSES, options.maxIterations) : options.maxIterations;
+  while (iteration < fixedPointLimit && Number.isFinite(pass.mismatch) && pass.mismatch < 1e6) {
+    if (pass.switchedNow) mixer.reset();
+    const x = new Float64Array(2 * P);
+    const g = new Float64Array(2 * P);
+    corrections.forEach((c, k) => {
+      x[2 * k] = c.re;
+      x[2 * k + 1] = c.im;
+      g[2 * k] = pass.next[k].re;
+      g[2 * k + 1] = pass.next[k].im;
+    });
+    const mixed = mixer.next(x, g, weights);
+    corrections = parts.map((_, k) => ({ re: mixed[2 * k], im: mixed[2 * k + 1] }));
+    const solved = solveWith(corrections);
+    if (typeof solved === 'string') return failure(solved);
+    volts = solved;
+    iteration++;
+    pass = evaluateParts(parts, partVolts(parts, volts), corrections, models, flips, ratedAmps, options);
+    if (pass.mismatch <= options.tolerance) return done();
+  }
+
+  // Newton on the corrections, with the same factors (the network is linear: v = v0 + T c).
+  if (P <= NEWTON_MAX_ELEMENTS && iteration < options.maxIterations) {
+    const t = transferMatrix(parts, classes, system, solver);
+    if (typeof t === 'string') return failure(t);
+    const v0 = partVolts(parts, constantImpedanceVolts);
+    // Start again from the constant-impedance answer, forgetting switch changes made by the diverging passes:
+    // Newton from there finds the solution next to it (the high-voltage one), not a collapsed one.
+    corrections = parts.map(() => ({ re: 0, im: 0 }));
+    models.forEach((m) => (m.switched = false));
+    flips.fill(0);
+    let v = elementVolts(v0, t, corrections);
+    pass = evaluateParts(parts, v, corrections, models, flips, ratedAmps, options);
+    while (iteration < options.maxIterations && pass.mismatch > options.tolerance) {
+      const step = newtonStep(parts, v, pass.residual, models.map((m) => m.switched), t);
+      if (!step) break;
+      iteration++;
+      ({ corrections, v, pass } = lineSearch(parts, v0, t, corrections, step, pass, models, flips, ratedAmps, options));
+      if (process.env.PW_DEBUG) console.log("newton", iteration, pass.mismatch.toExponential(2), Math.min(...v.map((x, k) => Math.hypot(x.re, x.im) / parts[k].ratedVolts)).toFixed(3), models.filter((m) => m.switched).length);
+    }
+    const solved = solveWith(corrections);
+    if (typeof solved === 'string') return failure(solved);
+    volts = solved;
+    pass = evaluateParts(parts, partVolts(parts, volts), corrections, models, flips, ratedAmps, options);
+    if (pass.mismatch <= options.tolerance) return done();
+  }
+
+  const ids = [...new Set(pass.worst.map((k) => parts[k].loadId))];
+  return {
+    ok: false,
+    message:
+      `the load iteration did not converge in ${iteration} iterations (largest current mismatch ` +
+      `${Number.isFinite(pass.mismatch) ? (pass.mismatch * 100).toPrecision(3) + ' %' : 'unbounded'} of rating) at loads ${ids.join(', ')}; ` +
+      'the loads are probably more than the supply can carry at constant power',
+    elementIds: ids,
+  };
+}
+
+/** Backtracking on the step length until the weighted residual falls (or the step is tiny). */
+function lineSearch(
+  parts: LoadPart[],
+  v0: Complex[],
+  t: Transfer,
+  corrections: Complex[],
+  step: Complex[],
+  pass: PassResult,
+  models: PartModel[],
+  flips: Int32Array,
+  ratedAmps: number[],
+  options: IterationOptions,
+): { corrections: Complex[]; v: Complex[]; pass: PassResult } {
+  const norm = (r: Complex[]) => r.reduce((s, x, k) => s + (x.re * x.re + x.im * x.im) / Math.max(ratedAmps[k], 1e-12) ** 2, 0);
+  const before = norm(pass.residual);
+  let alpha = 1;
+  for (;;) {
+    const trial = corrections.map((c, k) => ({ re: c.re + alpha * step[k].re, im: c.im + alpha * step[k].im }));
+    const v = elementVolts(v0, t, trial);
+    // Judge the trial without committing switch changes unless it is taken.
+    const trialModels = models.map((m) => ({ ...m }));
+    const trialFlips = Int32Array.from(flips);
+    const trialPass = evaluateParts(parts, v, trial, trialModels, trialFlips, ratedAmps, options);
+    if (norm(trialPass.residual) < before || alpha < 1 / 64) {
+      trialModels.forEach((m, k) => (models[k] = m));
+      flips.set(trialFlips);
+      return { corrections: trial, v, pass: trialPass };
+    }
+    alpha /= 2;
+  }
+}
