@@ -23,6 +23,7 @@ import { createDocumentStore } from './sync/document-store';
 import { RoomRegistry } from './sync/room-registry';
 import { attachSyncServer } from './sync/sync-server';
 import { migrateOnLoad } from './sync/migrate-on-load';
+import { seedDemoDocuments } from './demo-documents';
 
 export interface RunningServer {
   url: string;
@@ -52,11 +53,14 @@ export async function startServer(
   const auth = createAuth(db, config, mailer);
 
   let seeded: RunningServer['seeded'] = null;
+  let demoSheets: { id: string; fixture: string }[] = [];
   if (config.seedDemo && (await isEmpty(db))) {
-    seeded = await seedDemo(db, async (input) => {
+    const demo = await seedDemo(db, async (input) => {
       const created = await auth.api.signUpEmail({ body: input });
       return created.user.id;
     });
+    seeded = demo.users;
+    demoSheets = demo.sheets;
   }
 
   const rooms = new RoomRegistry(createDocumentStore(db), { log, upgrade: migrateOnLoad });
@@ -95,6 +99,7 @@ export async function startServer(
 
   const http = createHttpServer(app);
   const sync = attachSyncServer(http, { db, auth, rooms, log });
+  if (demoSheets.length > 0) await seedDemoDocuments(rooms, demoSheets, null);
   await new Promise<void>((resolve, reject) => {
     http.once('error', reject);
     http.listen(config.port, () => resolve());

@@ -37,6 +37,14 @@ describe('restart', () => {
       const demoProjects = (await demo.get('/api/projects')).body.projects;
       expect(demoProjects).toHaveLength(1);
       expect(demoProjects[0]).toMatchObject({ name: 'Larkspur Row', role: 'owner', sheetCount: 2 });
+      // The demo sheets are seeded as documents: the building and the farm, each with its what-ifs.
+      const demoSheets = (await demo.get(`/api/projects/${demoProjects[0].id}/sheets`)).body.sheets;
+      const docs = await Promise.all(demoSheets.map((s: any) => demo.get(`/api/sheets/${s.id}/document`)));
+      const byName = Object.fromEntries(docs.map((d: any) => [d.body.name, d.body]));
+      expect(Object.keys(byName).sort()).toEqual(['Hollis farm', 'Larkspur Row']);
+      expect(Object.values(byName['Larkspur Row'].elements).filter((e: any) => e.kind === 'load').length).toBeGreaterThan(10);
+      expect(byName['Larkspur Row'].whatIfs['open-service-neutral']).toBeDefined();
+      expect(Object.values(byName['Hollis farm'].elements).some((e: any) => e.kind === 'electrode')).toBe(true);
       const viewer = new TestClient(second.url);
       await viewer.signIn('viewer@example.com', DEMO_PASSWORD);
       expect((await viewer.get('/api/projects')).body.projects[0].role).toBe('viewer');
