@@ -158,7 +158,6 @@ function runCase(topology: Topology, buses: number): CaseResult {
   collectGarbage(); // what the factors retain, without the call's transient workspaces
   const after = process.memoryUsage();
   const heapDeltaBytes = after.heapUsed + after.arrayBuffers - (before.heapUsed + before.arrayBuffers);
-  console.error("DBG", before.heapUsed/1e6, before.arrayBuffers/1e6, after.heapUsed/1e6, after.arrayBuffers/1e6, firstLu.bytes/1e6);
   const factored =
     firstFactorMs > budget
       ? { timing: { medianMs: firstFactorMs, cpuMedianMs: firstFactorCpuMs, runs: 1 }, result: firstLu }
