@@ -9,8 +9,16 @@ import { isEmpty, seedDemo, DEMO_PASSWORD } from '../db/seed';
 import type { Health } from '../shared/api';
 import { createAuth, type Auth } from './auth';
 import type { ServerConfig } from './config';
-import { apiNotFound, errorHandler, HttpError } from './http/errors';
-import { requireUser } from './http/session';
+import { apiNotFound, errorHandler, HttpError, notFound } from './http/errors';
+import { idParam } from '../shared/api';
+import { optionalUser, requireUser } from './http/session';
+import { rateLimits } from './http/rate-limits';
+import { linksRouter } from './api/links/router';
+import { viewRouter, linkAccess } from './api/view/router';
+import { pinsRouter } from './api/pins/router';
+import { PinEvents } from './api/pins/events';
+import { requireSheetRole } from './api/access';
+import { currentUser } from './http/session';
 import { startLocalSink, type LocalSink } from './mail/local-sink';
 import { createMailer, type Mailer } from './mail/mailer';
 import { membersRouter } from './api/members/router';
@@ -85,14 +93,44 @@ export async function startServer(
       next(new HttpError(404, 'not_found', 'The outbox exists only while the local mail sink is in use (no SMTP_URL)')),
     );
 
+  const limits = rateLimits(config.rateLimitScale);
+  const pinEvents = new PinEvents();
+  const postOnly = (mw: express.RequestHandler): express.RequestHandler => (req, res, next) => (req.method === 'POST' ? mw(req, res, next) : next());
+
+  // Viewer links: no account needed; a guest or a signed-in person may comment.
+  const view = express.Router({ mergeParams: true });
+  view.use(limits.viewLookups, optionalUser(auth));
+  view.use('/pins', postOnly(limits.pins), pinsRouter({ db, mailer, config, events: pinEvents, log, access: (req, res) => linkAccess(db, req, res) }));
+  view.use('/', viewRouter(db, rooms));
+  app.use('/api/view/:token', view);
+
   const api = express.Router();
   api.use(requireUser(auth));
+  api.use(
+    '/sheets/:sheetId/pins',
+    postOnly(limits.pins),
+    pinsRouter({
+      db,
+      mailer,
+      config,
+      events: pinEvents,
+      log,
+      access: async (req, res) => {
+        const sheetId = idParam.safeParse((req.params as Record<string, string>).sheetId);
+        if (!sheetId.success) throw notFound('Sheet');
+        const user = currentUser(res);
+        const { sheet, role } = await requireSheetRole(db, sheetId.data, user.id, 'viewer');
+        return { sheetId: sheet.id, projectId: sheet.projectId, user, role };
+      },
+    }),
+  );
+  api.use('/sheets', postOnly(limits.links), linksRouter(db, rooms, config));
   api.use('/projects/:projectId/sheets', projectSheetsRouter(db));
   api.use('/projects/:projectId/members', membersRouter(db, rooms));
   api.use('/projects', projectsRouter(db));
   api.use('/sheets', documentsRouter(db, rooms));
   api.use('/sheets', sheetsRouter(db));
-  app.use('/api', (req, res, next) => (req.path === '/health' ? next() : api(req, res, next)));
+  app.use('/api', (req, res, next) => (req.path === '/health' || req.path.startsWith('/view/') ? next() : api(req, res, next)));
   app.use('/api', apiNotFound);
   app.use(webRouter());
   app.use(errorHandler(log));
@@ -116,6 +154,7 @@ export async function startServer(
     rooms,
     seeded,
     async close() {
+      pinEvents.closeAll();
       await sync.close();
       await rooms.closeAll();
       const closed = new Promise<void>((resolve) => http.close(() => resolve()));

@@ -1,6 +1,7 @@
 // better-auth: e-mail and password sign-in with session cookies, password reset by e-mail.
 import { betterAuth } from 'better-auth';
 import { drizzleAdapter } from 'better-auth/adapters/drizzle';
+import { anonymous } from 'better-auth/plugins/anonymous';
 import type { Database } from '../db/client';
 import { account, session, user, verification } from '../db/schema';
 import type { ServerConfig } from './config';
@@ -27,6 +28,20 @@ export function createAuth(db: Database, config: ServerConfig, mailer: Mailer) {
       },
     },
     session: { expiresIn: 60 * 60 * 24 * 14, updateAge: 60 * 60 * 24 },
+    // Guests who open a viewer link and give a name to comment get an anonymous account of their own.
+    plugins: [anonymous({ emailDomainName: 'guests.phasewright.invalid', disableDeleteAnonymousUser: true })],
+    // On in every environment (not only production): sign-in, sign-up and guest sign-in per address per minute.
+    rateLimit: {
+      enabled: true,
+      window: 60,
+      max: 300,
+      customRules: {
+        '/sign-in/email': { window: 60, max: 30 },
+        '/sign-up/email': { window: 60, max: 30 },
+        '/sign-in/anonymous': { window: 60, max: 20 },
+        '/request-password-reset': { window: 60, max: 10 },
+      },
+    },
     telemetry: { enabled: false },
   });
 }

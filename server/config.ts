@@ -15,6 +15,8 @@ const env = z.object({
   // Extra origins allowed to call the API with credentials (the Expo dev server in `npm run dev`).
   DEV_ORIGINS: z.string().optional(),
   SEED_DEMO: z.enum(['true', 'false']).default('true'),
+  // Multiplies the per-minute limits on invitations, links and pins (tests raise or lower them).
+  RATE_LIMIT_SCALE: z.coerce.number().positive().default(1),
 });
 
 export interface ServerConfig {
@@ -27,6 +29,7 @@ export interface ServerConfig {
   authSecret: string;
   trustedOrigins: string[];
   seedDemo: boolean;
+  rateLimitScale: number;
 }
 
 export function readConfig(source: Record<string, string | undefined> = process.env): ServerConfig {
@@ -49,6 +52,7 @@ export function readConfig(source: Record<string, string | undefined> = process.
     authSecret: e.BETTER_AUTH_SECRET ?? loadOrCreateSecret(dataDir),
     trustedOrigins: [publicUrl, ...devOrigins],
     seedDemo: e.SEED_DEMO === 'true',
+    rateLimitScale: e.RATE_LIMIT_SCALE,
   };
 }
 

@@ -8,6 +8,8 @@ import path from 'node:path';
 const root = path.resolve(__dirname, '..');
 export const distDir = path.join(root, 'dist');
 const stampFile = path.join(distDir, '.phasewright-build');
+/** The solve worker's file in dist/ (served from the site root; the editor loads it from /solve-worker.js). */
+export const WORKER_FILE = 'solve-worker.js';
 const INPUT_DIRS = ['app', 'components', 'editor', 'solver', 'shared', 'assets'];
 const INPUT_FILES = ['app.json', 'package-lock.json', 'tsconfig.json', 'babel.config.js', 'metro.config.js'];
 const SKIP = new Set(['node_modules', 'fixtures', 'bench', 'README.md']);
@@ -33,7 +35,7 @@ export function inputHash(): string {
 }
 
 export function webBuildIsCurrent(): boolean {
-  return existsSync(path.join(distDir, 'index.html')) && existsSync(stampFile) && readFileSync(stampFile, 'utf8').trim() === inputHash();
+  return existsSync(path.join(distDir, 'index.html')) && existsSync(path.join(distDir, WORKER_FILE)) && existsSync(stampFile) && readFileSync(stampFile, 'utf8').trim() === inputHash();
 }
 
 export function buildWeb(log: (line: string) => void = console.log): void {
@@ -45,6 +47,13 @@ export function buildWeb(log: (line: string) => void = console.log): void {
     env: { ...process.env, EXPO_OFFLINE: '1', CI: '1', EXPO_NO_TELEMETRY: '1' },
   });
   if (result.status !== 0) throw new Error(`expo export failed with exit code ${result.status}`);
+  // Metro cannot bundle a Web Worker: esbuild bundles the solve worker (solver + sheet format) beside the export.
+  const worker = spawnSync(
+    path.join(root, 'node_modules', '.bin', 'esbuild'),
+    [path.join('editor', 'solve', 'solve-worker.ts'), '--bundle', '--format=iife', '--target=es2020', '--minify', `--outfile=${path.join('dist', WORKER_FILE)}`, '--log-level=warning'],
+    { cwd: root, stdio: 'inherit' },
+  );
+  if (worker.status !== 0) throw new Error(`bundling the solve worker failed with exit code ${worker.status}`);
   writeFileSync(stampFile, inputHash() + '\n');
   log(`Web app built in ${((Date.now() - started) / 1000).toFixed(1)} s`);
 }

@@ -2,7 +2,7 @@
 import express, { type Router } from 'express';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
-import { distDir } from './web-build';
+import { distDir, WORKER_FILE } from './web-build';
 
 export function webRouter(): Router {
   const r = express.Router();
@@ -20,6 +20,7 @@ export function webRouter(): Router {
   return r;
 }
 
+// The solve worker keeps one name across builds, so it must be checked each time like the HTML.
 function noCacheForHtml(res: express.Response, file: string) {
-  if (file.endsWith('.html')) res.setHeader('Cache-Control', 'no-cache');
+  if (file.endsWith('.html') || path.basename(file) === WORKER_FILE) res.setHeader('Cache-Control', 'no-cache');
 }

@@ -18,3 +18,14 @@ export function passwordResetMail(name: string, url: string) {
     `<p>If it was not you, ignore this message: your password stays as it is.</p>`;
   return { subject: 'Reset your Phasewright password', text, html };
 }
+
+export function pinMail(input: { kind: 'pin' | 'reply'; author: string; sheetName: string; number: number; text: string; url: string }) {
+  const what = input.kind === 'pin' ? `added pin ${input.number}` : `replied on pin ${input.number}`;
+  const subject = `${input.author} ${what} on ${input.sheetName}`;
+  const text = [`${input.author} ${what} on the sheet "${input.sheetName}":`, '', input.text, '', `Open it: ${input.url}`, '', 'You can turn these e-mails off in Phasewright.'].join('\n');
+  const html =
+    `<p>${escapeHtml(input.author)} ${what} on the sheet “${escapeHtml(input.sheetName)}”:</p>` +
+    `<blockquote>${escapeHtml(input.text).replace(/\n/g, '<br>')}</blockquote>` +
+    `<p><a href="${escapeHtml(input.url)}">Open the pin</a></p><p>You can turn these e-mails off in Phasewright.</p>`;
+  return { subject, text, html };
+}

@@ -58,6 +58,14 @@ export class RoomRegistry {
     }
   }
 
+  /** Closes every socket opened through a revoked link. */
+  closeLink(sheetId: string, linkId: string): void {
+    void this.rooms.get(sheetId)?.then((room) => {
+      room.closeLink(linkId);
+      if (room.peers.size === 0) void this.unloadIfIdle(room);
+    });
+  }
+
   async closeAll(): Promise<void> {
     const rooms = await Promise.all([...this.rooms.values()].map((r) => r.catch(() => null)));
     for (const room of rooms) {

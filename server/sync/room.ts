@@ -21,6 +21,8 @@ const TOUCH_EVERY_MS = 2000;
 export interface Peer {
   user: { id: string; name: string };
   canWrite: boolean;
+  /** Set when the socket was opened through a viewer link rather than a membership. */
+  linkId?: string;
   clientIds: Set<number>;
   send(message: Uint8Array): void;
   close(code: number, reason: string): void;
@@ -189,9 +191,18 @@ export class Room {
     await this.store.touch(this.sheetId, edit.userId, edit.at).catch((err) => this.log(`sync ${this.sheetId}: touch failed: ${String(err)}`));
   }
 
+  closeLink(linkId: string): void {
+    for (const peer of [...this.peers]) {
+      if (peer.linkId !== linkId) continue;
+      peer.close(4410, 'link revoked');
+      this.leave(peer);
+    }
+  }
+
   setAccess(userId: string, access: 'write' | 'read' | 'none'): void {
     for (const peer of this.peers) {
-      if (peer.user.id !== userId) continue;
+      // A socket opened through a viewer link is governed by the link, not by membership.
+      if (peer.user.id !== userId || peer.linkId) continue;
       if (access === 'none') {
         peer.close(4403, 'access removed');
         this.leave(peer);

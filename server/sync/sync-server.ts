@@ -3,7 +3,6 @@
 // decides whether the socket may write.
 import type { IncomingMessage, Server } from 'node:http';
 import type { Duplex } from 'node:stream';
-import { fromNodeHeaders } from 'better-auth/node';
 import { WebSocketServer, type WebSocket } from 'ws';
 import { z } from 'zod';
 import type { Database } from '../../db/client';
@@ -13,6 +12,10 @@ import { projectRoleOf } from '../api/access';
 import { sheet as sheetTable } from '../../db/schema';
 import { eq } from 'drizzle-orm';
 import type { Peer } from './room';
+import { sessionUser } from '../http/session';
+import { requireActiveLink } from '../api/links/queries';
+import { HttpError } from '../http/errors';
+import { randomUUID } from 'node:crypto';
 import type { RoomRegistry } from './room-registry';
 
 const PATH = /^\/sync\/([^/?#]+)\/?$/;
@@ -32,20 +35,33 @@ export function attachSyncServer(http: Server, deps: { db: Database; auth: Auth;
   const wss = new WebSocketServer({ noServer: true, maxPayload: 16 * 1024 * 1024 });
 
   http.on('upgrade', (req: IncomingMessage, socket: Duplex, head: Buffer) => {
-    const match = PATH.exec(new URL(req.url ?? '/', 'http://x').pathname);
+    const url = new URL(req.url ?? '/', 'http://x');
+    const match = PATH.exec(url.pathname);
     if (!match) return refuse(socket, 404, 'Not Found');
     void (async () => {
       try {
         const sheetId = decodeURIComponent(match[1]);
-        const session = await deps.auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
-        if (!session) return refuse(socket, 401, 'Unauthorized');
+        const user = await sessionUser(deps.auth, req.headers);
+        const linkToken = url.searchParams.get('link');
+        if (linkToken) {
+          // Through a viewer link: read-only, no account needed; the link is checked now and watched while open.
+          let link;
+          try {
+            link = await requireActiveLink(deps.db, linkToken);
+          } catch (err) {
+            if (err instanceof HttpError) return refuse(socket, err.status, err.status === 410 ? 'Gone' : 'Not Found');
+            throw err;
+          }
+          if (link.sheetId !== sheetId) return refuse(socket, 404, 'Not Found');
+          const who = user ? { id: user.id, name: user.name } : { id: `visitor-${randomUUID()}`, name: 'Visitor' };
+          return wss.handleUpgrade(req, socket, head, (ws) => connect(ws, sheetId, who, false, link.id, link.expiresAt));
+        }
+        if (!user) return refuse(socket, 401, 'Unauthorized');
         if (!uuid.safeParse(sheetId).success) return refuse(socket, 404, 'Not Found');
         const [row] = await deps.db.select({ projectId: sheetTable.projectId }).from(sheetTable).where(eq(sheetTable.id, sheetId)).limit(1);
-        const role = row ? await projectRoleOf(deps.db, row.projectId, session.user.id) : null;
+        const role = row && !user.isGuest ? await projectRoleOf(deps.db, row.projectId, user.id) : null;
         if (!role) return refuse(socket, 404, 'Not Found');
-        wss.handleUpgrade(req, socket, head, (ws) =>
-          connect(ws, sheetId, { id: session.user.id, name: session.user.name }, roleAtLeast(role, 'editor')),
-        );
+        wss.handleUpgrade(req, socket, head, (ws) => connect(ws, sheetId, { id: user.id, name: user.name }, roleAtLeast(role, 'editor')));
       } catch (err) {
         deps.log(`sync upgrade failed: ${String(err)}`);
         refuse(socket, 500, 'Internal Server Error');
@@ -53,11 +69,19 @@ export function attachSyncServer(http: Server, deps: { db: Database; auth: Auth;
     })();
   });
 
-  function connect(ws: WebSocket, sheetId: string, user: { id: string; name: string }, canWrite: boolean) {
+  function connect(
+    ws: WebSocket,
+    sheetId: string,
+    user: { id: string; name: string },
+    canWrite: boolean,
+    linkId?: string,
+    linkExpiresAt?: Date | null,
+  ) {
     ws.binaryType = 'nodebuffer';
     const peer: Peer = {
       user,
       canWrite,
+      linkId,
       clientIds: new Set(),
       send(message) {
         if (ws.readyState === ws.OPEN) ws.send(message, (err) => err && ws.terminate());
@@ -89,6 +113,10 @@ export function attachSyncServer(http: Server, deps: { db: Database; auth: Auth;
       ws.ping();
     }, PING_INTERVAL_MS);
     ws.on('pong', () => (alive = true));
+    // An expiring link closes its sockets when it expires (revocation closes them through the registry).
+    const untilExpiry = linkExpiresAt ? linkExpiresAt.getTime() - Date.now() : null;
+    const expiry = untilExpiry !== null && untilExpiry < 2 ** 31 ? setTimeout(() => ws.close(4410, 'link expired'), Math.max(0, untilExpiry)) : null;
+    ws.on('close', () => expiry && clearTimeout(expiry));
     let closed = false;
     ws.on('close', () => {
       closed = true;
