@@ -16,6 +16,9 @@ import { rateLimits } from './http/rate-limits';
 import { linksRouter } from './api/links/router';
 import { viewRouter, linkAccess } from './api/view/router';
 import { pinsRouter } from './api/pins/router';
+import { acceptRouter, invitationsRouter } from './api/invitations/router';
+import { activityRouter } from './api/activity/router';
+import { preferencesRouter } from './api/preferences/router';
 import { PinEvents } from './api/pins/events';
 import { requireSheetRole } from './api/access';
 import { currentUser } from './http/session';
@@ -104,8 +107,15 @@ export async function startServer(
   view.use('/', viewRouter(db, rooms));
   app.use('/api/view/:token', view);
 
+  const invitations = invitationsRouter(db, mailer, config);
+  app.use('/api/invitations', limits.viewLookups, invitations.byTokenRouter);
+
   const api = express.Router();
   api.use(requireUser(auth));
+  api.use('/invitations', acceptRouter(db, invitations.findByToken));
+  api.use('/projects/:projectId/invitations', postOnly(limits.invitations), invitations.owners);
+  api.use('/projects/:projectId/activity', activityRouter(db));
+  api.use('/me', preferencesRouter(db));
   api.use(
     '/sheets/:sheetId/pins',
     postOnly(limits.pins),

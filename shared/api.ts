@@ -58,6 +58,7 @@ export interface MemberSummary {
   email: string;
   role: Role;
   joinedAt: string;
+  lastActiveAt: string | null;
 }
 
 export interface OutboxMessage {

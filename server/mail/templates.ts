@@ -29,3 +29,17 @@ export function pinMail(input: { kind: 'pin' | 'reply'; author: string; sheetNam
     `<p><a href="${escapeHtml(input.url)}">Open the pin</a></p><p>You can turn these e-mails off in Phasewright.</p>`;
   return { subject, text, html };
 }
+
+export function invitationMail(input: { inviter: string; projectName: string; role: string; url: string }) {
+  const subject = `${input.inviter} invited you to ${input.projectName} on Phasewright`;
+  const text = [
+    `${input.inviter} invited you to the project "${input.projectName}" on Phasewright, as ${input.role}.`,
+    '',
+    'Open this link within 7 days to accept (it works once):',
+    input.url,
+  ].join('\n');
+  const html =
+    `<p>${escapeHtml(input.inviter)} invited you to the project “${escapeHtml(input.projectName)}” on Phasewright, as ${escapeHtml(input.role)}.</p>` +
+    `<p><a href="${escapeHtml(input.url)}">Accept the invitation</a> within 7 days (the link works once).</p>`;
+  return { subject, text, html };
+}
