@@ -160,3 +160,49 @@ describe('pins by members', () => {
     expect(toOwner.find((m: any) => /replied on pin 2/.test(m.subject)).text).toContain(`/sheets/${f.sheetId}?pin=2`);
   });
 });
+
+describe('pin attachments', () => {
+  // A 1×1 PNG (signature, IHDR, IDAT, IEND), written out so the test does not depend on an image library.
+  const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082', 'hex');
+  const upload = async (name: string, content: Buffer, type: string) => {
+    const pinId = (await f.owner.get(`/api/sheets/${f.sheetId}/pins`)).body.pins[0].id;
+    const form = new FormData();
+    form.append('file', new Blob([new Uint8Array(content)], { type }), name);
+    const res = await fetch(`${f.server.url}/api/sheets/${f.sheetId}/pins/${pinId}/attachments`, {
+      method: 'POST',
+      headers: { cookie: f.editor.cookieHeader(), origin: f.server.url },
+      body: form,
+    });
+    return { status: res.status, body: await res.json(), pinId };
+  };
+
+  it('takes photos, PDFs and CSVs judged by their content, and serves them back', async () => {
+    const photo = await upload('panel-photo.png', png, 'image/png');
+    expect(photo.status, JSON.stringify(photo.body)).toBe(201);
+    expect(photo.body.attachment).toMatchObject({ fileName: 'panel-photo.png', mediaType: 'image/png', sizeBytes: png.length });
+    const csv = await upload('readings.csv', Buffer.from('point,volts\nA-N,121.4\nB-N,96.2\n'), 'text/csv');
+    expect(csv.body.attachment.mediaType).toBe('text/csv');
+    const pdf = await upload('meter.pdf', Buffer.from('%PDF-1.4\n1 0 obj\n<<>>\nendobj\ntrailer\n<<>>\n%%EOF\n'), 'application/pdf');
+    expect(pdf.body.attachment.mediaType).toBe('application/pdf');
+    const pins = (await f.viewer.get(`/api/sheets/${f.sheetId}/pins`)).body.pins;
+    expect(pins[0].attachments.map((a: any) => a.fileName)).toEqual(['panel-photo.png', 'readings.csv', 'meter.pdf']);
+    const back = await fetch(`${f.server.url}/api/sheets/${f.sheetId}/pins/${photo.pinId}/attachments/${photo.body.attachment.id}`, { headers: { cookie: f.viewer.cookieHeader() } });
+    expect(back.headers.get('content-type')).toBe('image/png');
+    expect(Buffer.from(await back.arrayBuffer()).equals(png)).toBe(true);
+    const outsider = await fetch(`${f.server.url}/api/sheets/${f.sheetId}/pins/${photo.pinId}/attachments/${photo.body.attachment.id}`, { headers: { cookie: f.outsider.cookieHeader() } });
+    expect(outsider.status).toBe(404);
+  });
+
+  it('refuses a file whose content is not what its name says, and one that is too large', async () => {
+    const fake = await upload('photo.png', Buffer.from('just text pretending'), 'image/png');
+    expect(fake.status).toBe(400);
+    expect(fake.body.error.message).toMatch(/not a photo, a PDF or a CSV/);
+    const exe = await upload('readings.csv', Buffer.from([0x4d, 0x5a, 0x90, 0x00, 0x03, 0x00, 0x00, 0x00, 0x04, 0x00, 0x00, 0x00, 0xff, 0xff, 0x00, 0x00]), 'text/csv');
+    expect(exe.status).toBe(400);
+    const big = await upload('huge.csv', Buffer.alloc(10 * 1024 * 1024 + 10, 0x41), 'text/csv');
+    expect(big.status).toBe(400);
+    expect(big.body.error.message).toMatch(/larger than 10 MB/);
+    const pins = (await f.viewer.get(`/api/sheets/${f.sheetId}/pins`)).body.pins;
+    expect(pins[0].attachments).toHaveLength(3);
+  });
+});

@@ -1,7 +1,7 @@
 // Pins and their replies: numbered per sheet, read with their authors' names.
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import type { Database } from '../../../db/client';
-import { pin, pinReply, projectMember, user, userPreference } from '../../../db/schema';
+import { pin, pinAttachment, pinReply, projectMember, user, userPreference } from '../../../db/schema';
 
 export interface PinThread {
   id: string;
@@ -14,6 +14,7 @@ export interface PinThread {
   createdAt: string;
   resolvedAt: string | null;
   replies: { id: string; author: { id: string | null; name: string }; body: string; createdAt: string }[];
+  attachments: { id: string; fileName: string; mediaType: string; sizeBytes: number }[];
 }
 
 export async function listPins(db: Database, sheetId: string): Promise<PinThread[]> {
@@ -30,7 +31,13 @@ export async function listPins(db: Database, sheetId: string): Promise<PinThread
     .leftJoin(user, eq(user.id, pinReply.authorId))
     .where(inArray(pinReply.pinId, pins.map((p) => p.pin.id)))
     .orderBy(asc(pinReply.createdAt));
+  const files = await db
+    .select({ id: pinAttachment.id, pinId: pinAttachment.pinId, fileName: pinAttachment.fileName, mediaType: pinAttachment.mediaType, sizeBytes: pinAttachment.sizeBytes })
+    .from(pinAttachment)
+    .where(inArray(pinAttachment.pinId, pins.map((p) => p.pin.id)))
+    .orderBy(asc(pinAttachment.createdAt));
   return pins.map(({ pin: p, authorName }) => ({
+    attachments: files.filter((f) => f.pinId === p.id).map(({ pinId: _pinId, ...rest }) => rest),
     id: p.id,
     number: p.number,
     elementId: p.elementId,

@@ -16,6 +16,9 @@ import { maybeUser, type SessionUser } from '../../http/session';
 import { valid, validate } from '../../http/validate';
 import { projectRoleOf } from '../access';
 import { addPin, findPin, listPins, pinMailRecipients } from './queries';
+import { judgeAttachment, MAX_ATTACHMENT_BYTES, uploadOne } from './attachments';
+import { pinAttachment } from '../../../db/schema';
+import { badRequest } from '../../http/errors';
 import type { PinEvents } from './events';
 
 const body = z.string().trim().min(1, 'Write something').max(4000, 'At most 4000 characters');
@@ -116,6 +119,46 @@ export function pinsRouter(deps: {
       .where(and(eq(pin.id, found.id), eq(pin.sheetId, a.sheetId)));
     events.publish(a.sheetId, { type: b.resolved ? 'pin-resolved' : 'pin-reopened', pinId: found.id, number: found.number });
     res.json({ pin: (await listPins(db, a.sheetId)).find((p) => p.id === found.id) });
+  });
+
+  r.post('/:pinId/attachments', (req, res, next) =>
+    uploadOne(req, res, (err: unknown) => {
+      if (err && typeof err === 'object' && 'code' in err && err.code === 'LIMIT_FILE_SIZE') {
+        return next(badRequest(`The file is larger than ${MAX_ATTACHMENT_BYTES / 1024 / 1024} MB`, [{ path: 'file', message: 'too large' }]));
+      }
+      next(err);
+    }),
+  async (req, res) => {
+    const a = await deps.access(req, res);
+    const uploader = writer(a);
+    const pinId = pinParams.safeParse(req.params);
+    if (!pinId.success) throw notFound('Pin');
+    const found = await findPin(db, a.sheetId, pinId.data.pinId);
+    if (!found) throw notFound('Pin');
+    const file = req.file;
+    if (!file) throw badRequest('Attach one file in the field "file"', [{ path: 'file', message: 'missing' }]);
+    const fileName = file.originalname.replace(/[\\/\r\n"]/g, '_').slice(0, 200) || 'file';
+    const mediaType = await judgeAttachment(fileName, file.buffer);
+    const [row] = await db
+      .insert(pinAttachment)
+      .values({ pinId: found.id, uploadedBy: uploader.id, fileName, mediaType, sizeBytes: file.size, content: new Uint8Array(file.buffer) })
+      .returning({ id: pinAttachment.id });
+    events.publish(a.sheetId, { type: 'reply-added', pinId: found.id, number: found.number });
+    res.status(201).json({ attachment: { id: row.id, fileName, mediaType, sizeBytes: file.size } });
+  });
+
+  r.get('/:pinId/attachments/:attachmentId', async (req, res) => {
+    const a = await deps.access(req, res);
+    const ids = z.object({ pinId: idParam, attachmentId: idParam }).safeParse(req.params);
+    if (!ids.success) throw notFound('Attachment');
+    const found = await findPin(db, a.sheetId, ids.data.pinId);
+    if (!found) throw notFound('Attachment');
+    const [row] = await db.select().from(pinAttachment).where(and(eq(pinAttachment.id, ids.data.attachmentId), eq(pinAttachment.pinId, found.id)));
+    if (!row) throw notFound('Attachment');
+    res.setHeader('Content-Type', row.mediaType);
+    res.setHeader('X-Content-Type-Options', 'nosniff');
+    res.setHeader('Content-Disposition', `${row.mediaType.startsWith('image/') ? 'inline' : 'attachment'}; filename="${row.fileName}"`);
+    res.send(Buffer.from(row.content));
   });
 
   return r;
