@@ -14,6 +14,7 @@ import {
   type NumericLu,
   type SymbolicLu,
 } from './sparse';
+import { matInverse, type ComplexMatrix } from './complex';
 
 export type { BlockUpdate, ComplexCsc };
 
@@ -79,25 +80,38 @@ export function directSolver(f: Factorization): LinearSolver {
 }
 
 /**
- * Solves target = base + Δ (Δ confined to a few nodes) through the base factors. The sparse module checks each
- * answer's residual and refactors when the low-rank answer is not good enough; after one refactor we keep those
- * factors for the remaining solves.
+ * Solves target = base + Δ (Δ confined to a few nodes) through the base factors. The first solve goes through the
+ * sparse module's solveWithBlockUpdate, which checks the answer's residual and refactors when the low-rank answer is
+ * not good enough. When it is, the Woodbury pieces (G = A⁻¹P and the small capacitance matrix) are kept, so each
+ * further right-hand side of the load iteration costs one base solve plus O(n·m); each answer is still checked by
+ * its residual on the target, and a bad one falls back to refactoring with the same analysis.
  */
-export function updatedSolver(base: Factorization, target: ComplexCsc, update: BlockUpdate): LinearSolver {
+export function updatedSolver(base: Factorization, target: ComplexCsc, update: BlockUpdate, residualTolerance = 1e-10): LinearSolver {
   let refactored: Factorization | undefined;
+  let woodbury: Woodbury | undefined;
+  const refactor = (bRe: Float64Array, bIm: Float64Array): Outcome<ComplexVector> => {
+    if (!refactored) {
+      const again = factorize(target, base);
+      if (!again.ok) return again;
+      refactored = again.value;
+      solver.method = 'refactor';
+    }
+    return { ok: true, value: solve(refactored.numeric, bRe, bIm) };
+  };
   const solver: LinearSolver = {
     matrix: target,
     method: 'low-rank',
     solve(bRe, bIm) {
-      if (refactored) return { ok: true, value: solve(refactored.numeric, bRe, bIm) };
       try {
-        const result = solveWithBlockUpdate(base.numeric, base.symbolic, base.matrix, update, bRe, bIm);
-        if (result.method === 'refactor') {
-          const again = factorize(target, base);
-          if (!again.ok) return again;
-          refactored = again.value;
-          solver.method = 'refactor';
+        if (refactored) return refactor(bRe, bIm);
+        if (woodbury) {
+          const x = woodbury.solve(bRe, bIm);
+          if (x && relativeResidual(target, x, bRe, bIm) <= residualTolerance) return { ok: true, value: x };
+          return refactor(bRe, bIm);
         }
+        const result = solveWithBlockUpdate(base.numeric, base.symbolic, base.matrix, update, bRe, bIm, { residualTolerance });
+        if (result.method === 'refactor') return refactor(bRe, bIm);
+        woodbury = prepareWoodbury(base, update);
         return { ok: true, value: { re: result.re, im: result.im } };
       } catch (error) {
         return singular(error);
@@ -105,6 +119,75 @@ export function updatedSolver(base: Factorization, target: ComplexCsc, update: B
     },
   };
   return solver;
+}
+
+interface Woodbury {
+  solve(bRe: Float64Array, bIm: Float64Array): ComplexVector | undefined;
+}
+
+/** x = y − G K⁻¹ Δ Pᵀ y with y = A⁻¹ b, G = A⁻¹ P, K = I + Δ Pᵀ G (m×m, inverted once). */
+function prepareWoodbury(base: Factorization, update: BlockUpdate): Woodbury | undefined {
+  const n = base.matrix.n;
+  const m = update.nodes.length;
+  const columns: ComplexVector[] = [];
+  for (let a = 0; a < m; a++) {
+    const eRe = new Float64Array(n);
+    eRe[update.nodes[a]] = 1;
+    columns.push(solve(base.numeric, eRe, new Float64Array(n)));
+  }
+  const delta = (a: number, b: number) => ({ re: update.deltaRe[a * m + b], im: update.deltaIm[a * m + b] });
+  const k: ComplexMatrix = [];
+  for (let a = 0; a < m; a++) {
+    k.push([]);
+    for (let b = 0; b < m; b++) {
+      // (Δ Pᵀ G)[a][b] = Σ_c Δ[a][c] G[node c][b]
+      let re = a === b ? 1 : 0;
+      let im = 0;
+      for (let c = 0; c < m; c++) {
+        const d = delta(a, c);
+        const gRe = columns[b].re[update.nodes[c]];
+        const gIm = columns[b].im[update.nodes[c]];
+        re += d.re * gRe - d.im * gIm;
+        im += d.re * gIm + d.im * gRe;
+      }
+      k[a].push({ re, im });
+    }
+  }
+  let kInv: ComplexMatrix;
+  try {
+    kInv = matInverse(k);
+  } catch {
+    return undefined;
+  }
+  return {
+    solve(bRe, bIm) {
+      const y = solve(base.numeric, bRe, bIm);
+      // w = Δ Pᵀ y, z = K⁻¹ w
+      const w = Array.from({ length: m }, (_, a) => {
+        let re = 0;
+        let im = 0;
+        for (let c = 0; c < m; c++) {
+          const d = delta(a, c);
+          const yRe = y.re[update.nodes[c]];
+          const yIm = y.im[update.nodes[c]];
+          re += d.re * yRe - d.im * yIm;
+          im += d.re * yIm + d.im * yRe;
+        }
+        return { re, im };
+      });
+      const z = kInv.map((row) => row.reduce((acc, v, b) => ({ re: acc.re + v.re * w[b].re - v.im * w[b].im, im: acc.im + v.re * w[b].im + v.im * w[b].re }), { re: 0, im: 0 }));
+      for (let b = 0; b < m; b++) {
+        const g = columns[b];
+        const zb = z[b];
+        for (let i = 0; i < n; i++) {
+          y.re[i] -= g.re[i] * zb.re - g.im[i] * zb.im;
+          y.im[i] -= g.re[i] * zb.im + g.im[i] * zb.re;
+        }
+      }
+      for (let i = 0; i < n; i++) if (!Number.isFinite(y.re[i]) || !Number.isFinite(y.im[i])) return undefined;
+      return y;
+    },
+  };
 }
 
 /** Δ = target − base over the nodes where they differ (same pattern), or undefined when they do not. */

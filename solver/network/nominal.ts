@@ -42,9 +42,10 @@ export function nominalVoltages(ctx: BuilderContext): NominalVoltages {
     zoneVolts[pin] = zone;
     queue.push(pin);
   };
+  let head = 0;
   const spread = () => {
-    while (queue.length > 0) {
-      const pin = queue.shift()!;
+    while (head < queue.length) {
+      const pin = queue[head++];
       const v = phasors[pin]!;
       for (const e of adjacency[pin]) assign(e.to, { re: v.re + e.offset.re, im: v.im + e.offset.im }, zoneVolts[pin]);
     }
@@ -90,8 +91,8 @@ function secondaryPhasors(t: BuilderContext['transformers'][number], phasors: Co
   if (anchor === undefined) return out;
   out.set(anchor, { re: 0, im: 0 });
   const queue = [anchor];
-  while (queue.length > 0) {
-    const pin = queue.shift()!;
+  for (let head = 0; head < queue.length; head++) {
+    const pin = queue[head];
     for (const e of edges.get(pin) ?? []) {
       if (out.has(e.to)) continue;
       const v = out.get(pin)!;

@@ -20,6 +20,9 @@ export function kclResidual(ctx: ResultContext): number {
     worst = Math.max(worst, Math.hypot(re, im));
     scale = Math.max(scale, abs);
   }
+  // A dead network carries only rounding: measure it against a thousandth of the loads' rated currents.
+  const floor = 1e-3 * ctx.solution.network.loads.reduce((s, p) => s + Math.hypot(p.ratedVa.re, p.ratedVa.im) / p.ratedVolts, 0);
+  scale = Math.max(scale, floor);
   return scale > 0 ? worst / scale : 0;
 }
 
@@ -43,7 +46,9 @@ export function powerBalance(ctx: ResultContext, sources: SourceResult[]): Power
   const sourceKvar = sources.reduce((a, s) => a + s.kvar, 0);
   const missRe = sourceKw * 1000 - loadRe - lossRe;
   const missIm = sourceKvar * 1000 - loadIm - lossIm;
-  const reference = Math.max(Math.hypot(sourceKw, sourceKvar) * 1000, Math.hypot(loadRe, loadIm));
+  // A dead network: against a thousandth of the loads' rated power rather than rounding.
+  const ratedVa = network.loads.reduce((s, p) => s + Math.hypot(p.ratedVa.re, p.ratedVa.im), 0);
+  const reference = Math.max(Math.hypot(sourceKw, sourceKvar) * 1000, Math.hypot(loadRe, loadIm), 1e-3 * ratedVa);
   return {
     sourceKw,
     sourceKvar,

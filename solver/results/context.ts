@@ -11,6 +11,27 @@ export interface ResultContext {
   currents: ElementCurrents;
   flows: { re: Float64Array; im: Float64Array };
   openNeutral: boolean;
+  /** Indexes built once per solve: load elements and stamps by element id, ties by kind|element|conductor. */
+  partsByLoad: Map<string, number[]>;
+  stampsByElement: Map<string, number[]>;
+  tieByKey: Map<string, number>;
+}
+
+export function indexSolution(solution: Solution): Pick<ResultContext, 'partsByLoad' | 'stampsByElement' | 'tieByKey'> {
+  const partsByLoad = new Map<string, number[]>();
+  solution.network.loads.forEach((p, k) => partsByLoad.set(p.loadId, [...(partsByLoad.get(p.loadId) ?? []), k]));
+  const stampsByElement = new Map<string, number[]>();
+  solution.network.stamps.forEach((s, k) => {
+    const list = stampsByElement.get(s.elementId);
+    if (list) list.push(k);
+    else stampsByElement.set(s.elementId, [k]);
+  });
+  const tieByKey = new Map<string, number>();
+  solution.network.ties.forEach((t, k) => {
+    const key = `${t.kind}|${t.elementId}|${t.conductor}`;
+    if (!tieByKey.has(key)) tieByKey.set(key, k);
+  });
+  return { partsByLoad, stampsByElement, tieByKey };
 }
 
 export function findPin(ctx: ResultContext, elementId: string, terminal: string, conductor: string): number | undefined {

@@ -5,7 +5,7 @@ import type { Solution } from '../solve/solve-network';
 import type { Modifications } from '../network/modifications';
 import { elementCurrents } from './currents';
 import { tieFlows } from './tie-flows';
-import type { ResultContext } from './context';
+import { indexSolution, type ResultContext } from './context';
 import { busResult } from './bus-results';
 import { loadResult } from './load-results';
 import { runResult } from './run-results';
@@ -36,7 +36,7 @@ export interface DeriveInput {
 export function deriveResults({ sheet, solution, mods, openNeutral, warnings }: DeriveInput): SolveResult {
   const currents = elementCurrents(solution.network, solution.volts, solution.corrections);
   const flows = tieFlows(solution.network, solution.classes, currents);
-  const ctx: ResultContext = { sheet, solution, currents, flows, openNeutral };
+  const ctx: ResultContext = { sheet, solution, currents, flows, openNeutral, ...indexSolution(solution) };
   const elements = Object.values(sheet.elements);
   const buses = elements.flatMap((e) => (e.kind === 'bus' ? [busResult(ctx, e)] : []));
   const loads = elements.flatMap((e) => (e.kind === 'load' ? [loadResult(ctx, e)] : []));
@@ -72,7 +72,7 @@ export function deriveResults({ sheet, solution, mods, openNeutral, warnings }: 
     ...(mods.whatIfId ? { whatIf: { id: mods.whatIfId, name: sheet.whatIfs[mods.whatIfId]?.name ?? '' } } : {}),
     standard: { id: sheet.settings.voltageStandard, label: standardLabel(sheet.settings) },
     frequencyHz: sheet.settings.frequencyHz,
-    convergence: { iterations: solution.iterations, mismatch: solution.mismatch, tolerance: sheet.settings.loadMismatchTolerance },
+    convergence: { iterations: solution.iterations, mismatch: solution.mismatch, tolerance: sheet.settings.loadMismatchTolerance, method: solution.iterationMethod },
     kclResidual: kclResidual(ctx),
     powerBalance: balance,
     linearSolve: { ...solution.linear },

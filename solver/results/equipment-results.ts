@@ -8,7 +8,7 @@ import { magnitude, phasor, pinVolts } from './phasor';
 import type { BondResult, BreakerResult, ElectrodeResult, SourceResult, TransformerResult } from './types';
 
 function tieIndex(ctx: ResultContext, kind: string, elementId: string, conductor: string): number {
-  return ctx.solution.network.ties.findIndex((t) => t.kind === kind && t.elementId === elementId && t.conductor === conductor);
+  return ctx.tieByKey.get(`${kind}|${elementId}|${conductor}`) ?? -1;
 }
 
 const flowMagnitude = (ctx: ResultContext, t: number) => (t < 0 ? 0 : Math.hypot(ctx.flows.re[t], ctx.flows.im[t]));
@@ -51,8 +51,9 @@ export function transformerResult(ctx: ResultContext, t: TransformerElement): Tr
   let outRe = 0;
   let outIm = 0;
   let lossKw = 0;
-  network.stamps.forEach((stamp, k) => {
-    if (stamp.kind !== 'transformer' || stamp.elementId !== t.id) return;
+  (ctx.stampsByElement.get(t.id) ?? []).forEach((k) => {
+    const stamp = network.stamps[k];
+    if (stamp.kind !== 'transformer') return;
     lossKw += absorbedVa(network, k, volts, ctx.currents).re / 1000;
     stamp.pins.forEach((pin, i) => {
       if (network.pins[pin].terminal !== 'secondary') return;
@@ -71,7 +72,7 @@ export function electrodeResult(ctx: ResultContext, e: ElectrodeElement): Electr
   const { network, volts } = ctx.solution;
   const lead = network.pinIndex.get(`${e.id}|lead|PE`);
   if (lead === undefined) return { electrodeId: e.id, name: e.name, amperes: 0, volts: 0 };
-  const stampIndex = network.stamps.findIndex((s) => s.kind === 'electrode' && s.elementId === e.id);
+  const stampIndex = (ctx.stampsByElement.get(e.id) ?? []).find((k) => network.stamps[k].kind === 'electrode') ?? -1;
   const amperes = stampIndex >= 0 ? magnitude(ctx.currents.perStamp[stampIndex][0]) : flowMagnitude(ctx, tieIndex(ctx, 'solid-ground', e.id, 'PE'));
   return { electrodeId: e.id, name: e.name, amperes, volts: magnitude(pinVolts(volts, lead)) };
 }

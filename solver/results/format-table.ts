@@ -62,7 +62,7 @@ export function formatResults(r: SolveResult): string {
   const pb = r.powerBalance;
   out.push(
     `Solved in ${r.convergence.iterations} load iteration${r.convergence.iterations === 1 ? '' : 's'} ` +
-      `(mismatch ${r.convergence.mismatch.toExponential(1)}), KCL residual ${r.kclResidual.toExponential(1)}, ` +
+      `(${r.convergence.method}, mismatch ${r.convergence.mismatch.toExponential(1)}), KCL residual ${r.kclResidual.toExponential(1)}, ` +
       `${r.linearSolve.unknowns} unknowns (${r.linearSolve.method})`,
   );
   out.push(

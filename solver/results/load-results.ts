@@ -16,10 +16,11 @@ export function loadResult(ctx: ResultContext, load: LoadElement): LoadResult {
   let kvar = 0;
   const usedModels = new Set<LoadModel>();
   // Dead when every conductor that should carry a phase voltage is dead; back-fed when any is live through loads.
-  const hotPins = network.loads.filter((p) => p.loadId === load.id).flatMap((p) => [p.p, p.q]).filter((pin) => magnitude(network.nominal[pin]) > 1e-3 * network.zoneVolts[pin]);
+  const mine = (ctx.partsByLoad.get(load.id) ?? []).map((k) => network.loads[k]);
+  const hotPins = mine.flatMap((p) => [p.p, p.q]).filter((pin) => magnitude(network.nominal[pin]) > 1e-3 * network.zoneVolts[pin]);
   const dead = hotPins.length > 0 && hotPins.every((pin) => pinState(ctx, pin) === 'de-energised');
-  network.loads.forEach((part, k) => {
-    if (part.loadId !== load.id) return;
+  (ctx.partsByLoad.get(load.id) ?? []).forEach((k) => {
+    const part = network.loads[k];
     const v = minus(pinVolts(volts, part.p), pinVolts(volts, part.q));
     const current = ctx.currents.perStamp[part.stampIndex][0];
     const sRe = v.re * current.re + v.im * current.im;

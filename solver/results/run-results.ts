@@ -35,7 +35,8 @@ function currentCarrying(ctx: ResultContext, run: RunElement, layout: RunLayout)
 
 export function runResult(ctx: ResultContext, run: RunElement): RunResult | undefined {
   const { network, volts } = ctx.solution;
-  const layout = network.runs.find((r) => r.runId === run.id);
+  const stampIndex = (ctx.stampsByElement.get(run.id) ?? []).find((k) => network.stamps[k].kind === 'run');
+  const layout = stampIndex === undefined ? undefined : network.runs.find((r) => r.stampIndex === stampIndex);
   if (!layout) return undefined;
   const currents = ctx.currents.perStamp[layout.stampIndex];
   const count = currentCarrying(ctx, run, layout);

@@ -162,7 +162,7 @@ export interface SolveResult {
   whatIf?: { id: string; name: string };
   standard: { id: string; label: string };
   frequencyHz: number;
-  convergence: { iterations: number; mismatch: number; tolerance: number };
+  convergence: { iterations: number; mismatch: number; tolerance: number; method: 'fixed-point' | 'newton' };
   /** Largest KCL mismatch at any node over the largest sum of current magnitudes at any node. */
   kclResidual: number;
   powerBalance: PowerBalance;

@@ -8,6 +8,7 @@ import type { LinearSolver } from '../linear-system';
 import type { PinClasses } from './classes';
 import type { AssembledSystem } from './assemble';
 import { solveDenseReal } from './dense-real';
+import { wantedDerivatives } from './load-law';
 
 export interface Transfer {
   /** T[j * P + k]: voltage of element j per ampere of correction at element k. */
@@ -61,40 +62,16 @@ export function elementVolts(v0: Complex[], t: Transfer, c: Complex[]): Complex[
 }
 
 /**
- * Wirtinger derivatives of the current a load element wants, w(v) = z·Y v + i·|I| v/|v| + p·conj(S)/conj(v):
- * δw = A δv + B conj(δv). A switched element is plain Y v.
- */
-export function wantedDerivatives(part: LoadPart, v: Complex, switched: boolean): { a: Complex; b: Complex } {
-  const mag = Math.hypot(v.re, v.im);
-  if (switched || mag <= 1e-9 * part.ratedVolts) return { a: { ...part.y }, b: { re: 0, im: 0 } };
-  const { impedance, current, power } = part.behaviour;
-  const sConj = { re: part.ratedVa.re, im: -part.ratedVa.im };
-  const beta = { re: (current * sConj.re) / part.ratedVolts, im: (current * sConj.im) / part.ratedVolts };
-  const gamma = { re: power * sConj.re, im: power * sConj.im };
-  // β v/|v|: ∂/∂v = β / (2|v|), ∂/∂v̄ = −β v² / (2|v|³); γ / v̄: ∂/∂v̄ = −γ / v̄².
-  const v2 = { re: v.re * v.re - v.im * v.im, im: 2 * v.re * v.im };
-  const k3 = 1 / (2 * mag * mag * mag);
-  const bCurrent = { re: -(beta.re * v2.re - beta.im * v2.im) * k3, im: -(beta.re * v2.im + beta.im * v2.re) * k3 };
-  const vbar2 = { re: v2.re, im: -v2.im };
-  const d = vbar2.re * vbar2.re + vbar2.im * vbar2.im;
-  const bPower = { re: -(gamma.re * vbar2.re + gamma.im * vbar2.im) / d, im: -(gamma.im * vbar2.re - gamma.re * vbar2.im) / d };
-  return {
-    a: { re: impedance * part.y.re + beta.re / (2 * mag), im: impedance * part.y.im + beta.im / (2 * mag) },
-    b: { re: bCurrent.re + bPower.re, im: bCurrent.im + bPower.im },
-  };
-}
-
-/**
  * One Newton step δc for r(c) = w(v) − Y v − c = 0 with v = v0 + T c: (D T − I) δc = −r, D the real 2×2
  * derivative of w − Y v per element. Undefined when the step's matrix is singular.
  */
-export function newtonStep(parts: LoadPart[], volts: Complex[], residual: Complex[], switched: boolean[], t: Transfer): Complex[] | undefined {
+export function newtonStep(parts: LoadPart[], volts: Complex[], residual: Complex[], switchFraction: number, t: Transfer): Complex[] | undefined {
   const p = parts.length;
   const m = 2 * p;
   const jac = new Float64Array(m * m);
   const rhs = new Float64Array(m);
   for (let j = 0; j < p; j++) {
-    const { a, b } = wantedDerivatives(parts[j], volts[j], switched[j]);
+    const { a, b } = wantedDerivatives(parts[j], volts[j], switchFraction);
     const A = { re: a.re - parts[j].y.re, im: a.im - parts[j].y.im };
     // Real form of δw = A δv + B conj(δv): [[Re(A+B), −Im(A−B)], [Im(A+B), Re(A−B)]].
     const d00 = A.re + b.re;

@@ -24,8 +24,8 @@ export function downstreamElements(sheet: Sheet, elementId: string, scope: 'down
     .filter((e) => e.kind === 'source' && e.id !== elementId)
     .map((e) => e.id);
   queue.forEach((id) => upstream.add(id));
-  while (queue.length > 0) {
-    const id = queue.shift()!;
+  for (let head = 0; head < queue.length; head++) {
+    const id = queue[head];
     for (const next of graph.get(id) ?? []) {
       if (next === elementId || upstream.has(next)) continue;
       upstream.add(next);
@@ -34,8 +34,8 @@ export function downstreamElements(sheet: Sheet, elementId: string, scope: 'down
   }
   const out = new Set<string>();
   const walk = [elementId];
-  while (walk.length > 0) {
-    const id = walk.shift()!;
+  for (let head = 0; head < walk.length; head++) {
+    const id = walk[head];
     for (const next of graph.get(id) ?? []) {
       if (next === elementId || upstream.has(next) || out.has(next)) continue;
       out.add(next);

@@ -1,7 +1,7 @@
 // The load iteration: constant-impedance shares are in the matrix; constant-current and constant-power shares are
 // correction currents I_corr = I_wanted(V) − Y V, updated by fixed-point iteration (Anderson-accelerated) and
 // re-solved with the same factors; when that does not contract, Newton steps on the corrections with the same
-// factors (correction-newton.ts). Below the low-voltage switch a load turns to constant impedance.
+// factors (correction-newton.ts). Below the low-voltage switch a load turns to constant impedance (load-law.ts).
 import type { Complex } from '../complex';
 import type { BuiltNetwork } from '../network/build-network';
 import type { LoadPart } from '../network/types';
@@ -10,9 +10,8 @@ import type { PinClasses } from './classes';
 import type { AssembledSystem } from './assemble';
 import { AndersonMixer } from './anderson';
 import { elementVolts, newtonStep, transferMatrix, type Transfer } from './correction-newton';
+import { wantedCurrent } from './load-law';
 
-/** After this many changes of side of the low-voltage switch a load stays at constant impedance (no limit cycle). */
-const MAX_SWITCH_FLIPS = 4;
 /** Fixed-point passes tried before Newton on the corrections takes over. */
 const FIXED_POINT_PASSES = 12;
 /** Newton on the corrections needs one solve per load element and a dense system of twice their number. */
@@ -42,6 +41,7 @@ export type IterationOutcome =
       iterations: number;
       /** Largest load current mismatch as a fraction of that load's rated current. */
       mismatch: number;
+      method: 'fixed-point' | 'newton';
     }
   | { ok: false; message: string; elementIds: string[] };
 
@@ -71,75 +71,36 @@ function baseModel(part: LoadPart): LoadModel {
   return 'mix';
 }
 
-/** The current a load element wants at voltage v (p − q), given whether it has switched to constant impedance. */
-export function wantedCurrent(part: LoadPart, v: Complex, switched: boolean): Complex {
-  const yv = { re: part.y.re * v.re - part.y.im * v.im, im: part.y.re * v.im + part.y.im * v.re };
-  const mag = Math.hypot(v.re, v.im);
-  if (switched || mag <= 1e-9 * part.ratedVolts) return yv;
-  const { impedance, current, power } = part.behaviour;
-  const sConj = { re: part.ratedVa.re, im: -part.ratedVa.im };
-  // Constant current: |S|/Vrated at the load's own power-factor angle behind its terminal voltage.
-  const iCurrent = { re: (sConj.re * v.re - sConj.im * v.im) / (part.ratedVolts * mag), im: (sConj.re * v.im + sConj.im * v.re) / (part.ratedVolts * mag) };
-  // Constant power: conj(S / v) = conj(S) / conj(v).
-  const d = v.re * v.re + v.im * v.im;
-  const iPower = { re: (sConj.re * v.re - sConj.im * v.im) / d, im: (sConj.re * v.im + sConj.im * v.re) / d };
-  return {
-    re: impedance * yv.re + current * iCurrent.re + power * iPower.re,
-    im: impedance * yv.im + current * iCurrent.im + power * iPower.im,
-  };
-}
-
-interface PassResult {
+interface Pass {
+  /** The corrections the load law asks for at these voltages. */
   next: Complex[];
+  /** next − the corrections that produced these voltages. */
   residual: Complex[];
+  switched: boolean[];
   mismatch: number;
   worst: number[];
-  switchedNow: boolean;
 }
 
-/** Judges every load element at its voltage: the switch, the current it wants, and the mismatch. */
-function evaluateParts(
-  parts: LoadPart[],
-  volts: Complex[],
-  corrections: Complex[],
-  models: PartModel[],
-  flips: Int32Array,
-  ratedAmps: number[],
-  options: IterationOptions,
-): PassResult {
-  let mismatch = 0;
-  let switchedNow = false;
-  const worst: number[] = [];
-  const next: Complex[] = [];
-  const residual: Complex[] = [];
+function evaluate(parts: LoadPart[], volts: Complex[], corrections: Complex[], ratedAmps: number[], options: IterationOptions): Pass {
+  const pass: Pass = { next: [], residual: [], switched: [], mismatch: 0, worst: [] };
   parts.forEach((part, k) => {
     const v = volts[k];
-    const model = models[k];
-    if (model.model !== 'constant-impedance' && flips[k] < MAX_SWITCH_FLIPS) {
-      // Re-judged every pass (an early iterate may dip below the switch); a load that keeps flipping stays switched.
-      const below = Math.hypot(v.re, v.im) < options.lowVoltageSwitchFraction * part.ratedVolts;
-      if (below !== model.switched) {
-        model.switched = below;
-        switchedNow = true;
-        flips[k]++;
-        if (flips[k] >= MAX_SWITCH_FLIPS) model.switched = true;
-      }
-    }
-    const wanted = wantedCurrent(part, v, model.switched);
+    const { current, switched } = wantedCurrent(part, v, options.lowVoltageSwitchFraction);
     const yv = { re: part.y.re * v.re - part.y.im * v.im, im: part.y.re * v.im + part.y.im * v.re };
-    const r = { re: wanted.re - yv.re - corrections[k].re, im: wanted.im - yv.im - corrections[k].im };
+    const next = { re: current.re - yv.re, im: current.im - yv.im };
+    const r = { re: next.re - corrections[k].re, im: next.im - corrections[k].im };
     const m = ratedAmps[k] > 0 ? Math.hypot(r.re, r.im) / ratedAmps[k] : 0;
-    mismatch = Number.isFinite(m) ? Math.max(mismatch, m) : Infinity;
-    if (!(m <= options.tolerance)) worst.push(k);
-    next.push({ re: wanted.re - yv.re, im: wanted.im - yv.im });
-    residual.push(r);
+    pass.mismatch = Number.isFinite(m) ? Math.max(pass.mismatch, m) : Infinity;
+    if (!(m <= options.tolerance)) pass.worst.push(k);
+    pass.next.push(next);
+    pass.residual.push(r);
+    pass.switched.push(switched);
   });
-  return { next, residual, mismatch, worst, switchedNow };
+  return pass;
 }
 
-function partVolts(parts: LoadPart[], volts: PinVoltages): Complex[] {
-  return parts.map((p) => ({ re: volts.re[p.p] - volts.re[p.q], im: volts.im[p.p] - volts.im[p.q] }));
-}
+const partVolts = (parts: LoadPart[], volts: PinVoltages): Complex[] =>
+  parts.map((p) => ({ re: volts.re[p.p] - volts.re[p.q], im: volts.im[p.p] - volts.im[p.q] }));
 
 export function iterateLoads(
   network: BuiltNetwork,
@@ -150,13 +111,10 @@ export function iterateLoads(
 ): IterationOutcome {
   const parts = network.loads;
   const P = parts.length;
-  let corrections: Complex[] = parts.map(() => ({ re: 0, im: 0 }));
-  const models: PartModel[] = parts.map((p) => ({ model: baseModel(p), switched: false }));
   const ratedAmps = parts.map((p) => Math.hypot(p.ratedVa.re, p.ratedVa.im) / p.ratedVolts);
-  const flips = new Int32Array(P);
-  const mixer = new AndersonMixer(2 * P);
   const weights = new Float64Array(2 * P);
   ratedAmps.forEach((a, k) => (weights[2 * k] = weights[2 * k + 1] = a > 0 ? 1 / a : 1));
+  const failure = (message: string): IterationOutcome => ({ ok: false, message, elementIds: [] });
 
   const solveWith = (c: Complex[]): PinVoltages | string => {
     const bRe = system.rhsRe.slice();
@@ -181,21 +139,31 @@ export function iterateLoads(
     if (solved.value.re.length !== classes.classCount) return 'the linear solve returned a vector of the wrong size';
     return pinVoltages(network, classes, system, solved.value);
   };
-  const failure = (message: string): IterationOutcome => ({ ok: false, message, elementIds: [] });
 
+  let corrections: Complex[] = parts.map(() => ({ re: 0, im: 0 }));
   const first = solveWith(corrections);
   if (typeof first === 'string') return failure(first);
   const constantImpedanceVolts = first;
   let volts = first;
-  let pass = evaluateParts(parts, partVolts(parts, volts), corrections, models, flips, ratedAmps, options);
+  let pass = evaluate(parts, partVolts(parts, volts), corrections, ratedAmps, options);
   let iteration = 1;
-  const done = (): IterationOutcome => ({ ok: true, volts, constantImpedanceVolts, corrections, models, iterations: iteration, mismatch: pass.mismatch });
-  if (pass.mismatch <= options.tolerance) return done();
+  const done = (method: 'fixed-point' | 'newton'): IterationOutcome => ({
+    ok: true,
+    volts,
+    constantImpedanceVolts,
+    corrections,
+    models: parts.map((p, k) => ({ model: baseModel(p), switched: pass.switched[k] })),
+    iterations: iteration,
+    mismatch: pass.mismatch,
+    method,
+  });
+  if (pass.mismatch <= options.tolerance) return done('fixed-point');
 
   // The fixed point, Anderson-accelerated; a change of switch state changes the map, so the history restarts.
+  const mixer = new AndersonMixer(2 * P);
   const fixedPointLimit = P <= NEWTON_MAX_ELEMENTS ? Math.min(FIXED_POINT_PASSES, options.maxIterations) : options.maxIterations;
+  let switchedBefore = pass.switched.join();
   while (iteration < fixedPointLimit && Number.isFinite(pass.mismatch) && pass.mismatch < 1e6) {
-    if (pass.switchedNow) mixer.reset();
     const x = new Float64Array(2 * P);
     const g = new Float64Array(2 * P);
     corrections.forEach((c, k) => {
@@ -210,34 +178,33 @@ export function iterateLoads(
     if (typeof solved === 'string') return failure(solved);
     volts = solved;
     iteration++;
-    pass = evaluateParts(parts, partVolts(parts, volts), corrections, models, flips, ratedAmps, options);
-    if (pass.mismatch <= options.tolerance) return done();
+    pass = evaluate(parts, partVolts(parts, volts), corrections, ratedAmps, options);
+    if (pass.mismatch <= options.tolerance) return done('fixed-point');
+    const switchedNow = pass.switched.join();
+    if (switchedNow !== switchedBefore) mixer.reset();
+    switchedBefore = switchedNow;
   }
 
-  // Newton on the corrections, with the same factors (the network is linear: v = v0 + T c).
+  // Newton on the corrections with the same factors (the network is linear: v = v0 + T c), started again from
+  // the constant-impedance answer so that it finds the solution next to it.
   if (P <= NEWTON_MAX_ELEMENTS && iteration < options.maxIterations) {
     const t = transferMatrix(parts, classes, system, solver);
     if (typeof t === 'string') return failure(t);
     const v0 = partVolts(parts, constantImpedanceVolts);
-    // Start again from the constant-impedance answer, forgetting switch changes made by the diverging passes:
-    // Newton from there finds the solution next to it (the high-voltage one), not a collapsed one.
     corrections = parts.map(() => ({ re: 0, im: 0 }));
-    models.forEach((m) => (m.switched = false));
-    flips.fill(0);
-    let v = elementVolts(v0, t, corrections);
-    pass = evaluateParts(parts, v, corrections, models, flips, ratedAmps, options);
+    let v = v0;
+    pass = evaluate(parts, v, corrections, ratedAmps, options);
     while (iteration < options.maxIterations && pass.mismatch > options.tolerance) {
-      const step = newtonStep(parts, v, pass.residual, models.map((m) => m.switched), t);
+      const step = newtonStep(parts, v, pass.residual, options.lowVoltageSwitchFraction, t);
       if (!step) break;
       iteration++;
-      ({ corrections, v, pass } = lineSearch(parts, v0, t, corrections, step, pass, models, flips, ratedAmps, options));
-      if (process.env.PW_DEBUG) console.log("newton", iteration, pass.mismatch.toExponential(2), Math.min(...v.map((x, k) => Math.hypot(x.re, x.im) / parts[k].ratedVolts)).toFixed(3), models.filter((m) => m.switched).length);
+      ({ corrections, v, pass } = lineSearch(parts, v0, t, corrections, step, pass, ratedAmps, options));
     }
     const solved = solveWith(corrections);
     if (typeof solved === 'string') return failure(solved);
     volts = solved;
-    pass = evaluateParts(parts, partVolts(parts, volts), corrections, models, flips, ratedAmps, options);
-    if (pass.mismatch <= options.tolerance) return done();
+    pass = evaluate(parts, partVolts(parts, volts), corrections, ratedAmps, options);
+    if (pass.mismatch <= options.tolerance) return done('newton');
   }
 
   const ids = [...new Set(pass.worst.map((k) => parts[k].loadId))];
@@ -258,27 +225,18 @@ function lineSearch(
   t: Transfer,
   corrections: Complex[],
   step: Complex[],
-  pass: PassResult,
-  models: PartModel[],
-  flips: Int32Array,
+  pass: Pass,
   ratedAmps: number[],
   options: IterationOptions,
-): { corrections: Complex[]; v: Complex[]; pass: PassResult } {
+): { corrections: Complex[]; v: Complex[]; pass: Pass } {
   const norm = (r: Complex[]) => r.reduce((s, x, k) => s + (x.re * x.re + x.im * x.im) / Math.max(ratedAmps[k], 1e-12) ** 2, 0);
   const before = norm(pass.residual);
   let alpha = 1;
   for (;;) {
     const trial = corrections.map((c, k) => ({ re: c.re + alpha * step[k].re, im: c.im + alpha * step[k].im }));
     const v = elementVolts(v0, t, trial);
-    // Judge the trial without committing switch changes unless it is taken.
-    const trialModels = models.map((m) => ({ ...m }));
-    const trialFlips = Int32Array.from(flips);
-    const trialPass = evaluateParts(parts, v, trial, trialModels, trialFlips, ratedAmps, options);
-    if (norm(trialPass.residual) < before || alpha < 1 / 64) {
-      trialModels.forEach((m, k) => (models[k] = m));
-      flips.set(trialFlips);
-      return { corrections: trial, v, pass: trialPass };
-    }
+    const trialPass = evaluate(parts, v, trial, ratedAmps, options);
+    if (norm(trialPass.residual) < before || alpha < 1 / 64) return { corrections: trial, v, pass: trialPass };
     alpha /= 2;
   }
 }

@@ -1,4 +1,5 @@
-// Which parts of the network are live: energised (a path to a source through conductors and windings), back-fed
+// Which parts of the network are live: energised (a path to a source through conductors, and through windings
+// from a live phase), back-fed
 // (live only through loads from a live phase: a hazard), de-energised (no path to a source, or reached only through
 // loads from a neutral or ground at its potential); and which live parts have no galvanic path to earth
 // (ungrounded: they get one reference tie and their phase-to-ground is not defined).
@@ -32,6 +33,7 @@ export function findParts(network: BuiltNetwork, classes: PinClasses): Parts {
   const strong: number[][] = Array.from({ length: n + 1 }, () => []);
   const all: number[][] = Array.from({ length: n + 1 }, () => []);
   const loadPairs: [number, number][] = [];
+  const windingPairs: [number, number][] = [];
   for (const stamp of network.stamps) {
     for (let i = 0; i < stamp.pins.length; i++) {
       for (let j = 0; j < stamp.pins.length; j++) {
@@ -41,6 +43,7 @@ export function findParts(network: BuiltNetwork, classes: PinClasses): Parts {
         if (a === b) continue;
         all[a].push(b);
         if (stamp.kind === 'load') loadPairs.push([stamp.pins[i], stamp.pins[j]]);
+        else if (stamp.kind === 'transformer') windingPairs.push([stamp.pins[i], stamp.pins[j]]);
         else strong[a].push(b);
       }
     }
@@ -51,8 +54,8 @@ export function findParts(network: BuiltNetwork, classes: PinClasses): Parts {
       mark[v] = 1;
       return true;
     });
-    while (queue.length > 0) {
-      const v = queue.shift()!;
+    for (let head = 0; head < queue.length; head++) {
+      const v = queue[head];
       for (const w of edges[v]) {
         if (mark[w] || !allowed(w)) continue;
         mark[w] = 1;
@@ -63,6 +66,16 @@ export function findParts(network: BuiltNetwork, classes: PinClasses): Parts {
   const sourceNodes = network.sources.flatMap((s) => [s.starPin, ...s.emfTies.map((t) => network.ties[t.tieIndex].a)]).map(node);
   const energised = new Uint8Array(n + 1);
   bfs(sourceNodes, strong, energised, () => true);
+  // A transformer passes energy on only from a live phase: a winding whose line end is dead, reached from its
+  // neutral end alone, does not energise the other side.
+  for (let grew = true; grew; ) {
+    grew = false;
+    const seeds = windingPairs.filter(([p, q]) => energised[node(p)] && livePhase(network, p) && !energised[node(q)]).map(([, q]) => node(q));
+    if (seeds.length === 0) break;
+    const before = energised.reduce((a, b) => a + b, 0);
+    bfs(seeds, strong, energised, () => true);
+    grew = energised.reduce((a, b) => a + b, 0) > before;
+  }
   const reached = new Uint8Array(n + 1);
   bfs([...Array(n + 1).keys()].filter((v) => energised[v]), all, reached, () => true);
 

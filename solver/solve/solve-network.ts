@@ -20,10 +20,12 @@ export interface Solution {
   models: PartModel[];
   iterations: number;
   mismatch: number;
+  /** How the load iteration converged: the fixed point, or Newton on the corrections. */
+  iterationMethod: 'fixed-point' | 'newton';
   linear: { method: SolveMethod; unknowns: number; nonzeros: number };
 }
 
-export type FailureCode = 'unknown-what-if' | 'not-supported' | 'source-conflict' | 'singular' | 'not-converged' | 'not-finite' | 'invalid-sheet';
+export type FailureCode = 'unknown-what-if' | 'not-supported' | 'source-conflict' | 'singular' | 'not-converged' | 'not-finite' | 'invalid-sheet' | 'internal';
 
 export interface SolveFailure {
   code: FailureCode;
@@ -94,6 +96,7 @@ export function solveBuiltNetwork(network: BuiltNetwork, settings: SheetSettings
       models: iteration.models,
       iterations: iteration.iterations,
       mismatch: iteration.mismatch,
+      iterationMethod: iteration.method,
       linear: { method: chosen.solver.method, unknowns: system.matrix.n, nonzeros: system.matrix.colPtr[system.matrix.n] },
     },
   };

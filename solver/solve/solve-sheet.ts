@@ -24,7 +24,16 @@ export class SheetSolver {
   constructor(readonly sheet: Sheet, private readonly readWarnings: ResultWarning[] = []) {}
 
   solve(whatIfId?: string): SolveOutcome {
-    if (whatIfId !== undefined && !this.base) this.solve(undefined); // the base factors, for reuse
+    try {
+      return this.solveOnce(whatIfId);
+    } catch (error) {
+      // A safety net: whatever goes wrong inside comes back as a failure, never as an exception.
+      return { ok: false, error: { code: 'internal', message: `the solver failed unexpectedly: ${(error as Error).message}`, elementIds: [] } };
+    }
+  }
+
+  private solveOnce(whatIfId?: string): SolveOutcome {
+    if (whatIfId !== undefined && !this.base) this.solveOnce(undefined); // the base factors, for reuse
     const applied = applyWhatIf(this.sheet, whatIfId);
     if (!applied.ok) return { ok: false, error: { code: applied.code, message: applied.message, elementIds: applied.elementIds } };
     const network = buildNetwork(this.sheet, applied.mods);

@@ -75,17 +75,24 @@ describe('load iteration', () => {
 
   it('turns a load to constant impedance below the low-voltage switch', () => {
     // source: the sheet setting (default 0.7 of rating); a 240 V load on a weak source sinks below 168 V
-    const heavy = { kw: 250, powerFactor: 0.9, loadKind: 'motor' };
-    const result = solved(oneLoad(heavy));
+    const result = solved(oneLoad({ kw: 250, powerFactor: 0.9, loadKind: 'motor' }));
     const e = result.loads[0].elements[0];
     expect(e.volts).toBeLessThan(0.7 * 240);
     expect(e.switchedToImpedance).toBe(true);
     expect(e.model).toBe('constant-impedance');
-    // derived: once switched the load is the constant impedance V² / S of its rating
-    const zl = { re: (240 * 240 * 250000) / (250000 ** 2 + (250000 * Math.tan(Math.acos(0.9))) ** 2), im: 0 };
-    zl.im = zl.re * Math.tan(Math.acos(0.9));
+    // derived: switched, it is the impedance that draws its rated power at the switch voltage, (0.7 V)² / conj(S)
+    const p = 250000;
+    const q = p * Math.tan(Math.acos(0.9));
+    const vs2 = (0.7 * 240) ** 2;
+    const zl = { re: (vs2 * p) / (p * p + q * q), im: (vs2 * q) / (p * p + q * q) };
     const expected = (240 * Math.hypot(zl.re, zl.im)) / Math.hypot(zl.re + R, zl.im + X);
     expect(Math.abs(e.volts - expected)).toBeLessThan(1e-9 * expected);
+  });
+
+  it('switches continuously: just above the switch the load draws what it draws just below', () => {
+    // derived: the switched impedance matches the constant-power current at the switch voltage
+    const below = solved(oneLoad({ kw: 250, powerFactor: 0.9, loadKind: 'motor' }, { lowVoltageSwitchFraction: 0.7 })).loads[0].elements[0];
+    expect(Math.abs(below.kw / (250 * (below.volts / (0.7 * 240)) ** 2) - 1)).toBeLessThan(1e-9);
   });
 
   it('reports non-convergence as an error that names the load', () => {
