@@ -1,6 +1,6 @@
 // Durable storage of sheet documents: a snapshot plus the updates after it. Appends are grouped (across rooms)
 // into single INSERT statements; compaction replaces the snapshot and drops folded updates in one transaction.
-import { and, asc, eq, gt, lte } from 'drizzle-orm';
+import { and, asc, eq, gt, lte, sql } from 'drizzle-orm';
 import type { Database } from '../../db/client';
 import { sheet, sheetSnapshot, sheetUpdate } from '../../db/schema';
 
@@ -32,9 +32,18 @@ function groupedAppender(db: Database) {
       const group = queue;
       queue = [];
       try {
+        // Updates travel to PGlite as base64 text decoded in SQL: its bytea parameter encoding costs 2.5 times more.
         const rows = await db
           .insert(sheetUpdate)
-          .values(group.flatMap((w) => w.entries.map((e) => ({ sheetId: w.sheetId, update: e.update, userId: e.userId }))))
+          .values(
+            group.flatMap((w) =>
+              w.entries.map((e) => ({
+                sheetId: w.sheetId,
+                update: sql`decode(${Buffer.from(e.update.buffer, e.update.byteOffset, e.update.byteLength).toString('base64')}, 'base64')` as unknown as Uint8Array,
+                userId: e.userId,
+              })),
+            ),
+          )
           .returning({ seq: sheetUpdate.seq, sheetId: sheetUpdate.sheetId });
         const last = new Map<string, number>();
         for (const r of rows) last.set(r.sheetId, Math.max(last.get(r.sheetId) ?? 0, r.seq));
