@@ -32,19 +32,21 @@ function groupedAppender(db: Database) {
       const group = queue;
       queue = [];
       try {
-        // Updates travel to PGlite as base64 text decoded in SQL: its bytea parameter encoding costs 2.5 times more.
-        const rows = await db
-          .insert(sheetUpdate)
-          .values(
-            group.flatMap((w) =>
-              w.entries.map((e) => ({
-                sheetId: w.sheetId,
-                update: sql`decode(${Buffer.from(e.update.buffer, e.update.byteOffset, e.update.byteLength).toString('base64')}, 'base64')` as unknown as Uint8Array,
-                userId: e.userId,
-              })),
-            ),
-          )
-          .returning({ seq: sheetUpdate.seq, sheetId: sheetUpdate.sheetId });
+        // Updates travel to PGlite as base64 text decoded in SQL (its bytea parameter encoding costs 2.5 times
+        // more), in one hand-built multi-row INSERT (the query builder's per-value checks showed in profiles).
+        const values = sql.join(
+          group.flatMap((w) =>
+            w.entries.map((e) => {
+              const b64 = Buffer.from(e.update.buffer, e.update.byteOffset, e.update.byteLength).toString('base64');
+              return sql`(${w.sheetId}::uuid, decode(${b64}, 'base64'), ${e.userId})`;
+            }),
+          ),
+          sql`, `,
+        );
+        const result = (await db.execute(
+          sql`insert into ${sheetUpdate} (sheet_id, update, user_id) values ${values} returning seq, sheet_id`,
+        )) as unknown as { rows: { seq: string | number; sheet_id: string }[] };
+        const rows = result.rows.map((r) => ({ seq: Number(r.seq), sheetId: r.sheet_id }));
         const last = new Map<string, number>();
         for (const r of rows) last.set(r.sheetId, Math.max(last.get(r.sheetId) ?? 0, r.seq));
         for (const w of group) w.resolve(last.get(w.sheetId) ?? 0);
