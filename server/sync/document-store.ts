@@ -63,8 +63,39 @@ function groupedAppender(db: Database) {
     });
 }
 
+// Touches of sheet metadata from many rooms arriving while one is being written go out as one UPDATE.
+function groupedToucher(db: Database) {
+  let queue = new Map<string, { userId: string | null; at: Date; done: (() => void)[] }>();
+  let writing = false;
+  const drain = async () => {
+    writing = true;
+    while (queue.size > 0) {
+      const group = queue;
+      queue = new Map();
+      const rows = sql.join(
+        [...group].map(([id, t]) => sql`(${id}::uuid, ${t.at.toISOString()}::timestamptz, ${t.userId}::text)`),
+        sql`, `,
+      );
+      await db
+        .execute(
+          sql`update ${sheet} set updated_at = v.at, updated_by = coalesce(v.by, ${sheet.updatedBy}) from (values ${rows}) as v(id, at, by) where ${sheet.id} = v.id`,
+        )
+        .catch(() => {});
+      for (const t of group.values()) for (const d of t.done) d();
+    }
+    writing = false;
+  };
+  return (sheetId: string, userId: string | null, at: Date) =>
+    new Promise<void>((resolve) => {
+      const prev = queue.get(sheetId);
+      queue.set(sheetId, { userId: userId ?? prev?.userId ?? null, at, done: [...(prev?.done ?? []), resolve] });
+      if (!writing) void drain();
+    });
+}
+
 export function createDocumentStore(db: Database): DocumentStore {
   const appendGrouped = groupedAppender(db);
+  const touchGrouped = groupedToucher(db);
   return {
     async load(sheetId) {
       const [snap] = await db.select().from(sheetSnapshot).where(eq(sheetSnapshot.sheetId, sheetId)).limit(1);
@@ -86,12 +117,7 @@ export function createDocumentStore(db: Database): DocumentStore {
       return appendGrouped(sheetId, entries);
     },
 
-    async touch(sheetId, userId, at) {
-      await db
-        .update(sheet)
-        .set(userId ? { updatedAt: at, updatedBy: userId } : { updatedAt: at })
-        .where(eq(sheet.id, sheetId));
-    },
+    touch: (sheetId, userId, at) => touchGrouped(sheetId, userId, at),
 
     async compact(sheetId, state, throughSeq) {
       await db.transaction(async (tx) => {
