@@ -1,10 +1,15 @@
-// One project: its sheets (open, new, rename, delete), its members with their roles (read-only for now) and, for
-// owners, renaming and deleting the project. Viewers see no controls that change anything.
+// One project: its sheets (open, new, rename, delete, and for owners share), its members and, for owners, the
+// invitations, the membership record, renaming and deleting the project. Viewers see no controls that change
+// anything. Everyone gets their own pin e-mail switch at the foot.
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { MemberSummary, ProjectCreateBody, ProjectSummary, SheetCreateBody, SheetSummary } from '@/shared/api';
 import { can } from '@/shared/roles';
 import { ProjectForm } from '../forms/project-form';
+import { ShareSheet } from '../links/share-sheet';
+import { MembersSection } from '../members/members-section';
+import { OwnerMembership } from '../members/owner-membership';
+import { PinEmailsSwitch } from '../members/pin-emails-switch';
 import { SheetNameForm } from '../forms/sheet-name-form';
 import { Screen } from '../layout/screen';
 import { useResponsive } from '../layout/use-responsive';
@@ -37,6 +42,7 @@ type Dialog =
   | { kind: 'new-sheet' }
   | { kind: 'rename-sheet'; sheet: SheetSummary }
   | { kind: 'delete-sheet'; sheet: SheetSummary }
+  | { kind: 'share-sheet'; sheet: SheetSummary }
   | { kind: 'edit-project' }
   | { kind: 'delete-project' };
 
@@ -131,6 +137,14 @@ export function ProjectDetail(props: ProjectDetailProps) {
                       actions={
                         mayEditSheets ? (
                           <>
+                            {isOwner ? (
+                              <IconButton
+                                icon="share-2"
+                                label={`Share ${sheet.name}`}
+                                onPress={() => setDialog({ kind: 'share-sheet', sheet })}
+                                testID={`share-sheet-${sheet.id}`}
+                              />
+                            ) : null}
                             <IconButton
                               icon="edit-2"
                               label={`Rename ${sheet.name}`}
@@ -155,27 +169,9 @@ export function ProjectDetail(props: ProjectDetailProps) {
           )}
         </Loadable>
 
-        <Loadable state={members} loadingLabel="Loading members…" errorTitle="Could not load the members" testID="members">
-          {(list) => (
-            <Section title="Members" count={list.length} testID="member-section">
-              <Card testID="member-list">
-                {list.map((member, index) => (
-                  <ListRow
-                    key={member.userId}
-                    first={index === 0}
-                    title={member.name}
-                    subtitle={member.email}
-                    meta={<RoleBadge role={member.role} />}
-                    testID={`member-row-${member.userId}`}
-                  />
-                ))}
-              </Card>
-              <Text variant="small" tone="faint">
-                Inviting people and changing roles come in a later release.
-              </Text>
-            </Section>
-          )}
-        </Loadable>
+        <MembersSection projectId={project.id} members={members} manage={isOwner} />
+
+        {isOwner ? <OwnerMembership projectId={project.id} /> : null}
 
         {isOwner ? (
           <Section title="Owner">
@@ -197,7 +193,13 @@ export function ProjectDetail(props: ProjectDetailProps) {
             </Card>
           </Section>
         ) : null}
+
+        <Section title="Your settings">
+          <PinEmailsSwitch />
+        </Section>
       </Screen>
+
+      <ShareSheet sheet={dialog.kind === 'share-sheet' ? dialog.sheet : null} onClose={close} />
 
       <FormSheet visible={dialog.kind === 'new-sheet'} title="New sheet" onClose={close} testID="new-sheet-sheet">
         <SheetNameForm

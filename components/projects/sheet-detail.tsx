@@ -1,5 +1,6 @@
-// A sheet's record: its name, its project, who made and last changed it, and when. The drawing itself comes
-// with the editor; this page says so plainly.
+// A sheet's record: its name, its project, who made and last changed it, and when. The editor shows it in its
+// sheet-details panel (embedded), beside the drawing.
+import type { ReactNode } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { SheetResponse } from '@/shared/api';
 import { Screen } from '../layout/screen';
@@ -15,6 +16,8 @@ export interface SheetDetailProps {
   sheet: SheetResponse['sheet'];
   project: SheetResponse['project'];
   onOpenProject: () => void;
+  /** Inside another panel: no screen of its own. */
+  embedded?: boolean;
 }
 
 function Fact({ label, value, mono, testID }: { label: string; value: string; mono?: boolean; testID?: string }) {
@@ -30,10 +33,11 @@ function Fact({ label, value, mono, testID }: { label: string; value: string; mo
   );
 }
 
-export function SheetDetail({ sheet, project, onOpenProject }: SheetDetailProps) {
+export function SheetDetail({ sheet, project, onOpenProject, embedded }: SheetDetailProps) {
   const { color } = useTheme();
+  const Frame = embedded ? EmbeddedFrame : Screen;
   return (
-    <Screen testID="sheet-detail">
+    <Frame testID="sheet-detail">
       <View style={styles.head}>
         <Pressable
           onPress={onOpenProject}
@@ -64,22 +68,21 @@ export function SheetDetail({ sheet, project, onOpenProject }: SheetDetailProps)
         <Fact label="Last changed" value={formatDateTime(sheet.updatedAt)} mono />
       </Card>
 
-      <Card style={[styles.card, { backgroundColor: color.raised }]} testID="sheet-canvas-note">
-        <View style={styles.row}>
-          <Icon name="pen-tool" size={18} color={color.inkMuted} />
-          <Text variant="bodyStrong">Drawing comes with the editor</Text>
-        </View>
-        <Text tone="muted">
-          The drawing canvas, with its solver results on the sheet, is not built yet. For now this page keeps the
-          sheet's name and history.
-        </Text>
-      </Card>
-    </Screen>
+    </Frame>
+  );
+}
+
+function EmbeddedFrame({ children, testID }: { children: ReactNode; testID?: string }) {
+  return (
+    <View testID={testID} style={styles.embedded}>
+      {children}
+    </View>
   );
 }
 
 const styles = StyleSheet.create({
   head: { gap: space.sm },
+  embedded: { gap: space.lg },
   projectLink: { flexDirection: 'row', alignItems: 'center', gap: space.xs, minHeight: 44, alignSelf: 'flex-start' },
   row: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
   card: { padding: space.lg, gap: space.md },

@@ -1,13 +1,16 @@
 // The sheet's commands: each one is one Yjs transaction carrying the caller's origin, so undo tracks only the
 // caller's own edits and listeners can tell local from remote changes.
 import * as Y from 'yjs';
-import type { Connection, SheetElement, SheetSettings, WhatIfChange } from '../../shared/sheet';
+import type { z } from 'zod';
+import type { Connection, elementSchema, SheetSettings, WhatIfChange } from '../../shared/sheet';
 import { newId } from './ids';
 import { collection, sheetMeta, settingsMap, type Collection } from './sheet-doc';
-import { setAtPath, toY, type Plain } from './y-values';
+import { fromY, setAtPath, toY, type Plain } from './y-values';
 
 type WithOptionalId<T> = T extends unknown ? Omit<T, 'id'> & { id?: string } : never;
-export type NewElement = WithOptionalId<Partial<SheetElement> & Pick<SheetElement, 'kind'>> & Record<string, unknown>;
+type ElementInput = z.input<typeof elementSchema>;
+/** An element as written: any of its fields (defaults fill the rest when read), the kind required. */
+export type NewElement = WithOptionalId<Partial<ElementInput> & Pick<ElementInput, 'kind'>> & Record<string, unknown>;
 export type NewConnection = Omit<Connection, 'id'> & { id?: string };
 
 const plain = (v: unknown) => JSON.parse(JSON.stringify(v)) as Record<string, Plain>;
@@ -50,6 +53,67 @@ export class SheetCommands {
         el.set('x', m.x);
         el.set('y', m.y);
       }
+    });
+  }
+
+  /** Several fields of one entry in one transaction (one inspector save is one undo step). */
+  updateFields(where: Collection, id: string, changes: readonly { path: readonly string[]; value: Plain | undefined }[]): boolean {
+    if (changes.length === 0) return false;
+    return this.run(() => {
+      const entry = collection(this.doc, where).get(id);
+      if (!entry) return false;
+      for (const { path, value } of changes) {
+        if (path.length === 0 || path[0] === 'id') continue;
+        setAtPath(entry, path, value);
+      }
+      return true;
+    });
+  }
+
+  /** Turns elements by a quarter turn (or any multiple) about their own centres, in one transaction. */
+  rotateElements(ids: readonly string[], deltaDeg = 90): void {
+    this.run(() => {
+      const elements = collection(this.doc, 'elements');
+      for (const id of ids) {
+        const el = elements.get(id);
+        if (!el) continue;
+        const current = Number(el.get('rotationDeg') ?? 0);
+        const next = ((((Number.isFinite(current) ? current : 0) + deltaDeg) % 360) + 360) % 360;
+        el.set('rotationDeg', next);
+      }
+    });
+  }
+
+  /**
+   * Copies elements (and the connections between two copied elements) offset by dx, dy, in one transaction.
+   * Returns the new ids in the order given.
+   */
+  duplicateElements(ids: readonly string[], offset: { dx: number; dy: number }): string[] {
+    return this.run(() => {
+      const elements = collection(this.doc, 'elements');
+      const renamed = new Map<string, string>();
+      for (const id of ids) {
+        const el = elements.get(id);
+        if (!el) continue;
+        const json = fromY(el) as Record<string, Plain>;
+        const copyId = newId(String(json.kind ?? 'element'));
+        renamed.set(id, copyId);
+        const x = Number(json.x ?? 0) + offset.dx;
+        const y = Number(json.y ?? 0) + offset.dy;
+        elements.set(copyId, toY({ ...json, id: copyId, x, y }) as Y.Map<unknown>);
+      }
+      const connections = collection(this.doc, 'connections');
+      for (const c of [...connections.values()]) {
+        const json = fromY(c) as { from?: { elementId?: string }; to?: { elementId?: string } } & Record<string, Plain>;
+        const from = renamed.get(String(json.from?.elementId));
+        const to = renamed.get(String(json.to?.elementId));
+        if (!from || !to) continue;
+        const copyId = newId('conn');
+        const fromEnd = json.from as Record<string, Plain>;
+        const toEnd = json.to as Record<string, Plain>;
+        connections.set(copyId, toY({ ...json, id: copyId, from: { ...fromEnd, elementId: from }, to: { ...toEnd, elementId: to } }) as Y.Map<unknown>);
+      }
+      return ids.flatMap((id) => (renamed.has(id) ? [renamed.get(id)!] : []));
     });
   }
 

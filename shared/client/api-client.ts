@@ -14,6 +14,62 @@ import type {
   SheetPatchBody,
   SheetResponse,
 } from '../api';
+import type { Role } from '../roles';
+
+// Members, invitations, activity, viewer links and preferences: the shapes the server's routes answer with.
+export type InvitationState = 'pending' | 'accepted' | 'withdrawn' | 'expired';
+export interface InvitationSummary {
+  id: string;
+  email: string;
+  role: Role;
+  state: InvitationState;
+  sentAt: string;
+  expiresAt: string;
+}
+/** What the invitation page shows before anyone signs in. */
+export interface InvitationPreview {
+  email: string;
+  role: Role;
+  projectName: string;
+  inviter: string | null;
+  expiresAt: string;
+}
+export interface InvitationCreateBody {
+  email: string;
+  role: Role;
+}
+export type ActivityAction = 'invited' | 'invitation-resent' | 'invitation-withdrawn' | 'joined' | 'role-changed' | 'removed';
+export interface ActivityEntry {
+  id: string;
+  action: ActivityAction;
+  /** The e-mail address the change was about. */
+  subject: string;
+  role: Role | null;
+  actor: string | null;
+  at: string;
+}
+export type ViewerLinkState = 'active' | 'revoked' | 'expired';
+export interface ViewerLinkSummary {
+  id: string;
+  label: string;
+  createdAt: string;
+  expiresAt: string | null;
+  revokedAt: string | null;
+  state: ViewerLinkState;
+}
+export interface ViewerLinkCreateBody {
+  label?: string;
+  expiresInDays?: number;
+}
+/** The new link's address comes back this once; the server keeps only a hash of its token. */
+export interface ViewerLinkCreated {
+  link: ViewerLinkSummary;
+  token: string;
+  url: string;
+}
+export interface Preferences {
+  pinEmails: boolean;
+}
 
 export type ApiErrorCode = ApiErrorBody['error']['code'] | 'network';
 export interface FieldIssue {
@@ -122,6 +178,38 @@ export function createApiClient(options: ApiClientOptions) {
 
     listMembers: (projectId: string) =>
       request<ListMembersResponse>('GET', `/api/projects/${id(projectId)}/members`),
+    changeMemberRole: (projectId: string, userId: string, role: Role) =>
+      request<ListMembersResponse>('PATCH', `/api/projects/${id(projectId)}/members/${id(userId)}`, { role }),
+    removeMember: (projectId: string, userId: string) =>
+      request<unknown>('DELETE', `/api/projects/${id(projectId)}/members/${id(userId)}`),
+
+    listInvitations: (projectId: string) =>
+      request<{ invitations: InvitationSummary[] }>('GET', `/api/projects/${id(projectId)}/invitations`),
+    createInvitation: (projectId: string, body: InvitationCreateBody) =>
+      request<{ invitation: InvitationSummary }>('POST', `/api/projects/${id(projectId)}/invitations`, body),
+    resendInvitation: (projectId: string, invitationId: string) =>
+      request<{ invitation: InvitationSummary }>(
+        'POST',
+        `/api/projects/${id(projectId)}/invitations/${id(invitationId)}/resend`,
+      ),
+    withdrawInvitation: (projectId: string, invitationId: string) =>
+      request<{ invitation: InvitationSummary }>('DELETE', `/api/projects/${id(projectId)}/invitations/${id(invitationId)}`),
+    getInvitation: (token: string) => request<{ invitation: InvitationPreview }>('GET', `/api/invitations/${id(token)}`),
+    acceptInvitation: (token: string) =>
+      request<{ projectId: string; role: Role }>('POST', `/api/invitations/${id(token)}/accept`),
+
+    listActivity: (projectId: string) =>
+      request<{ activity: ActivityEntry[] }>('GET', `/api/projects/${id(projectId)}/activity`),
+
+    listViewerLinks: (sheetId: string) => request<{ links: ViewerLinkSummary[] }>('GET', `/api/sheets/${id(sheetId)}/links`),
+    createViewerLink: (sheetId: string, body: ViewerLinkCreateBody) =>
+      request<ViewerLinkCreated>('POST', `/api/sheets/${id(sheetId)}/links`, body),
+    revokeViewerLink: (sheetId: string, linkId: string) =>
+      request<{ link: ViewerLinkSummary }>('DELETE', `/api/sheets/${id(sheetId)}/links/${id(linkId)}`),
+
+    getPreferences: () => request<{ preferences: Preferences }>('GET', '/api/me/preferences'),
+    updatePreferences: (body: Preferences) =>
+      request<{ preferences: Preferences }>('PATCH', '/api/me/preferences', body),
 
     listOutbox: () => request<OutboxResponse>('GET', '/api/outbox'),
   };

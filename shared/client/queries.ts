@@ -2,7 +2,14 @@
 // it makes stale (a new sheet changes the project's sheet list and the sheet count in the projects list).
 import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import type { ProjectCreateBody, ProjectPatchBody, SheetPatchBody, SheetCreateBody } from '../api';
-import { createApiClient, type ApiClient } from './api-client';
+import type { Role } from '../roles';
+import {
+  createApiClient,
+  type ApiClient,
+  type InvitationCreateBody,
+  type Preferences,
+  type ViewerLinkCreateBody,
+} from './api-client';
 import { resolveApiBaseUrl } from './api-base-url';
 import { auth } from './auth-client';
 
@@ -22,6 +29,11 @@ export const queryKeys = {
   sheet: (sheetId: string) => ['sheets', sheetId] as const,
   outbox: ['outbox'] as const,
   health: ['health'] as const,
+  invitations: (projectId: string) => ['projects', projectId, 'invitations'] as const,
+  activity: (projectId: string) => ['projects', projectId, 'activity'] as const,
+  invitation: (token: string) => ['invitation', token] as const,
+  viewerLinks: (sheetId: string) => ['sheets', sheetId, 'links'] as const,
+  preferences: ['preferences'] as const,
 };
 
 // Session
@@ -209,5 +221,156 @@ export function useOutbox() {
     queryFn: async () => (await getApiClient().listOutbox()).messages,
     // New mail shows up by itself; a missing outbox (404) is final, so stop asking.
     refetchInterval: (query) => (query.state.status === 'error' ? false : 5_000),
+  });
+}
+
+// Membership management (owners): roles, removal, invitations and the record of who did what.
+
+/** A membership change alters the member list, the pending invitations and the activity record. */
+function invalidateMembership(client: QueryClient, projectId: string) {
+  return Promise.all([
+    client.invalidateQueries({ queryKey: queryKeys.members(projectId) }),
+    client.invalidateQueries({ queryKey: queryKeys.invitations(projectId) }),
+    client.invalidateQueries({ queryKey: queryKeys.activity(projectId) }),
+  ]);
+}
+
+export function useChangeMemberRole(projectId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async ({ userId, role }: { userId: string; role: Role }) =>
+      (await getApiClient().changeMemberRole(projectId, userId, role)).members,
+    onSuccess: (members) => {
+      client.setQueryData(queryKeys.members(projectId), members);
+      return Promise.all([
+        invalidateMembership(client, projectId),
+        // The signed-in person may have changed their own role.
+        client.invalidateQueries({ queryKey: queryKeys.project(projectId), exact: true }),
+        client.invalidateQueries({ queryKey: queryKeys.projects, exact: true }),
+      ]);
+    },
+  });
+}
+
+export function useRemoveMember(projectId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (userId: string) => getApiClient().removeMember(projectId, userId),
+    onSuccess: () => invalidateMembership(client, projectId),
+  });
+}
+
+export function useInvitations(projectId: string | undefined, enabled = true) {
+  return useQuery({
+    queryKey: queryKeys.invitations(projectId ?? ''),
+    queryFn: async () => (await getApiClient().listInvitations(projectId!)).invitations,
+    enabled: !!projectId && enabled,
+  });
+}
+
+export function useCreateInvitation(projectId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async (body: InvitationCreateBody) => (await getApiClient().createInvitation(projectId, body)).invitation,
+    onSuccess: () => invalidateMembership(client, projectId),
+  });
+}
+
+export function useResendInvitation(projectId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async (invitationId: string) => (await getApiClient().resendInvitation(projectId, invitationId)).invitation,
+    onSuccess: () => invalidateMembership(client, projectId),
+  });
+}
+
+export function useWithdrawInvitation(projectId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async (invitationId: string) => (await getApiClient().withdrawInvitation(projectId, invitationId)).invitation,
+    onSuccess: () => invalidateMembership(client, projectId),
+  });
+}
+
+export function useActivity(projectId: string | undefined, enabled = true) {
+  return useQuery({
+    queryKey: queryKeys.activity(projectId ?? ''),
+    queryFn: async () => (await getApiClient().listActivity(projectId!)).activity,
+    enabled: !!projectId && enabled,
+  });
+}
+
+// Invitations by token: readable without a session; accepting needs one.
+
+export function useInvitationPreview(token: string | undefined) {
+  return useQuery({
+    queryKey: queryKeys.invitation(token ?? ''),
+    queryFn: async () => (await getApiClient().getInvitation(token!)).invitation,
+    enabled: !!token,
+    // A 404 or 410 is the answer, not a hiccup.
+    retry: false,
+  });
+}
+
+export function useAcceptInvitation(token: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: () => getApiClient().acceptInvitation(token),
+    onSuccess: ({ projectId }) =>
+      Promise.all([
+        client.invalidateQueries({ queryKey: queryKeys.projects, exact: true }),
+        client.invalidateQueries({ queryKey: queryKeys.project(projectId) }),
+      ]),
+  });
+}
+
+// Viewer links (owners, per sheet).
+
+export function useViewerLinks(sheetId: string | undefined) {
+  return useQuery({
+    queryKey: queryKeys.viewerLinks(sheetId ?? ''),
+    queryFn: async () => (await getApiClient().listViewerLinks(sheetId!)).links,
+    enabled: !!sheetId,
+  });
+}
+
+export function useCreateViewerLink(sheetId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (body: ViewerLinkCreateBody) => getApiClient().createViewerLink(sheetId, body),
+    onSuccess: () => client.invalidateQueries({ queryKey: queryKeys.viewerLinks(sheetId) }),
+  });
+}
+
+export function useRevokeViewerLink(sheetId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async (linkId: string) => (await getApiClient().revokeViewerLink(sheetId, linkId)).link,
+    onSuccess: () => client.invalidateQueries({ queryKey: queryKeys.viewerLinks(sheetId) }),
+  });
+}
+
+// The signed-in person's own preferences.
+
+export function usePreferences() {
+  return useQuery({
+    queryKey: queryKeys.preferences,
+    queryFn: async () => (await getApiClient().getPreferences()).preferences,
+  });
+}
+
+export function useUpdatePreferences() {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async (body: Preferences) => (await getApiClient().updatePreferences(body)).preferences,
+    onMutate: async (body) => {
+      // The switch moves at once; a failure puts it back.
+      await client.cancelQueries({ queryKey: queryKeys.preferences });
+      const before = client.getQueryData<Preferences>(queryKeys.preferences);
+      client.setQueryData(queryKeys.preferences, body);
+      return { before };
+    },
+    onError: (_error, _body, context) => client.setQueryData(queryKeys.preferences, context?.before),
+    onSuccess: (preferences) => client.setQueryData(queryKeys.preferences, preferences),
   });
 }

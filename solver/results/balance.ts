@@ -42,6 +42,8 @@ export function powerBalance(ctx: ResultContext, sources: SourceResult[]): Power
       lossIm += s.im;
     }
   });
+  loadRe += ctx.extraAbsorbedVa?.re ?? 0;
+  loadIm += ctx.extraAbsorbedVa?.im ?? 0;
   const sourceKw = sources.reduce((a, s) => a + s.kw, 0);
   const sourceKvar = sources.reduce((a, s) => a + s.kvar, 0);
   const missRe = sourceKw * 1000 - loadRe - lossRe;

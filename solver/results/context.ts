@@ -11,6 +11,8 @@ export interface ResultContext {
   currents: ElementCurrents;
   flows: { re: Float64Array; im: Float64Array };
   openNeutral: boolean;
+  /** Power absorbed outside the stamps (a shunt fault's path), VA; counted with the loads in the balance. */
+  extraAbsorbedVa?: { re: number; im: number };
   /** Indexes built once per solve: load elements and stamps by element id, ties by kind|element|conductor. */
   partsByLoad: Map<string, number[]>;
   stampsByElement: Map<string, number[]>;

@@ -31,12 +31,24 @@ export interface DeriveInput {
   mods: Modifications;
   openNeutral: boolean;
   warnings: ResultWarning[];
+  /** Currents drawn out of pins by something that is not a stamp (a shunt fault): pin, amperes drawn. */
+  extraInjections?: { pin: number; re: number; im: number }[];
 }
 
-export function deriveResults({ sheet, solution, mods, openNeutral, warnings }: DeriveInput): SolveResult {
+export function deriveResults({ sheet, solution, mods, openNeutral, warnings, extraInjections = [] }: DeriveInput): SolveResult {
   const currents = elementCurrents(solution.network, solution.volts, solution.corrections);
+  let extraRe = 0;
+  let extraIm = 0;
+  for (const { pin, re, im } of extraInjections) {
+    currents.injRe[pin] += re;
+    currents.injIm[pin] += im;
+    currents.injAbs[pin] += Math.hypot(re, im);
+    // Power absorbed by the extra path, Σ V conj(I), for the balance.
+    extraRe += solution.volts.re[pin] * re + solution.volts.im[pin] * im;
+    extraIm += solution.volts.im[pin] * re - solution.volts.re[pin] * im;
+  }
   const flows = tieFlows(solution.network, solution.classes, currents);
-  const ctx: ResultContext = { sheet, solution, currents, flows, openNeutral, ...indexSolution(solution) };
+  const ctx: ResultContext = { sheet, solution, currents, flows, openNeutral, extraAbsorbedVa: { re: extraRe, im: extraIm }, ...indexSolution(solution) };
   const elements = Object.values(sheet.elements);
   const buses = elements.flatMap((e) => (e.kind === 'bus' ? [busResult(ctx, e)] : []));
   const loads = elements.flatMap((e) => (e.kind === 'load' ? [loadResult(ctx, e)] : []));

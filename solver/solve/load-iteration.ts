@@ -49,6 +49,8 @@ export interface IterationOptions {
   lowVoltageSwitchFraction: number;
   tolerance: number;
   maxIterations: number;
+  /** Every load at its rated-voltage impedance (the fault case): one linear solve, no iteration. */
+  constantImpedanceOnly?: boolean;
 }
 
 export function pinVoltages(network: BuiltNetwork, classes: PinClasses, system: AssembledSystem, x: { re: Float64Array; im: Float64Array }): PinVoltages {
@@ -157,6 +159,18 @@ export function iterateLoads(
     mismatch: pass.mismatch,
     method,
   });
+  if (options.constantImpedanceOnly) {
+    return {
+      ok: true,
+      volts,
+      constantImpedanceVolts,
+      corrections,
+      models: parts.map(() => ({ model: 'constant-impedance' as LoadModel, switched: false })),
+      iterations: 1,
+      mismatch: 0,
+      method: 'fixed-point',
+    };
+  }
   if (pass.mismatch <= options.tolerance) return done('fixed-point');
 
   // The fixed point, Anderson-accelerated; a change of switch state changes the map, so the history restarts.

@@ -16,6 +16,9 @@ export interface Parts {
   ungrounded: boolean[];
   /** One class per ungrounded part: where its reference tie goes. */
   referenceTies: number[];
+  /** Galvanic group of each class (joined by conductors, loads and winding ends), and the earth's group. */
+  groupOf: Int32Array;
+  earthGroup: number;
 }
 
 const nonZero = (v: { re: number; im: number }) => v.re !== 0 || v.im !== 0;
@@ -121,5 +124,7 @@ export function findParts(network: BuiltNetwork, classes: PinClasses): Parts {
       referenceTies.push(v);
     }
   }
-  return { state, isolated, ungrounded, referenceTies };
+  const groupOf = new Int32Array(n);
+  for (let v = 0; v < n; v++) groupOf[v] = find(v);
+  return { state, isolated, ungrounded, referenceTies, groupOf, earthGroup };
 }

@@ -33,7 +33,7 @@ export interface SolveFailure {
   elementIds: string[];
 }
 
-export type NetworkOutcome = { ok: true; solution: Solution; factorization?: Factorization } | { ok: false; error: SolveFailure };
+export type NetworkOutcome = { ok: true; solution: Solution; factorization?: Factorization; solver: LinearSolver } | { ok: false; error: SolveFailure };
 
 /** A block update is worth it while it touches few nodes compared with the whole system. */
 export function blockUpdateIsCheaper(nodes: number, unknowns: number): boolean {
@@ -59,7 +59,7 @@ function chooseSolver(system: AssembledSystem, base?: Factorization): { ok: true
   return { ok: true, solver: directSolver(factored.value), factorization: factored.value };
 }
 
-export function solveBuiltNetwork(network: BuiltNetwork, settings: SheetSettings, base?: Factorization): NetworkOutcome {
+export function solveBuiltNetwork(network: BuiltNetwork, settings: SheetSettings, base?: Factorization, options: { constantImpedanceOnly?: boolean } = {}): NetworkOutcome {
   const merged = mergeTies(network);
   if (!merged.ok) return { ok: false, error: { code: 'source-conflict', message: merged.message, elementIds: merged.elementIds } };
   const classes = merged.classes;
@@ -70,7 +70,9 @@ export function solveBuiltNetwork(network: BuiltNetwork, settings: SheetSettings
   const iteration = iterateLoads(network, classes, system, chosen.solver, {
     lowVoltageSwitchFraction: settings.lowVoltageSwitchFraction,
     tolerance: settings.loadMismatchTolerance,
-    maxIterations: settings.maxLoadIterations,
+    // During a fault every load is a constant impedance: the first pass alone.
+    maxIterations: options.constantImpedanceOnly ? 1 : settings.maxLoadIterations,
+    constantImpedanceOnly: options.constantImpedanceOnly,
   });
   if (!iteration.ok) {
     const code = iteration.message.includes('singular') ? 'singular' : 'not-converged';
@@ -85,6 +87,7 @@ export function solveBuiltNetwork(network: BuiltNetwork, settings: SheetSettings
   return {
     ok: true,
     factorization: chosen.factorization,
+    solver: chosen.solver,
     solution: {
       network,
       classes,

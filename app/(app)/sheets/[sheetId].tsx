@@ -1,46 +1,223 @@
-// A sheet's page: its record for now; the drawing canvas comes with the editor.
+// A sheet's page: the editor on the sheet's live document (the drawing, its results, the crew), with the sheet's
+// record one tap away in its details panel.
 import { Stack, useLocalSearchParams, useRouter } from 'expo-router';
+import type { ReactNode } from 'react';
 import { View } from 'react-native';
+import { SheetCanvas } from '@/components/canvas/sheet-canvas';
+import { Cautions } from '@/components/editor/cautions';
+import { CrewList } from '@/components/editor/crew-list';
+import { CutChooser } from '@/components/editor/cut-chooser';
+import { EditorLayout } from '@/components/editor/editor-layout';
+import { Inspector } from '@/components/editor/inspector';
+import { Legend } from '@/components/editor/legend';
+import { Palette } from '@/components/editor/palette';
+import { ResultsPanel } from '@/components/editor/results-panel';
+import { SelectionPeek } from '@/components/editor/selection-peek';
+import { PaneSection, SlidingPanel } from '@/components/editor/sliding-panel';
+import { Toast } from '@/components/editor/toast';
+import { ToolBar } from '@/components/editor/tool-bar';
+import { TopBar } from '@/components/editor/top-bar';
+import { useResponsive } from '@/components/layout/use-responsive';
 import { SheetDetail } from '@/components/projects/sheet-detail';
 import { useTheme } from '@/components/theme/use-theme';
 import { Button } from '@/components/ui/button';
-import { Loadable } from '@/components/ui/loadable';
-import { EmptyState } from '@/components/ui/states';
+import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { Text } from '@/components/ui/text';
+import { useCanvasBindings, useSheetEditor } from '@/editor/ui/use-sheet-editor';
+import { useEditorView } from '@/editor/ui/use-editor-view';
 import { isApiError } from '@/shared/client/api-client';
-import { loadable } from '@/shared/client/loadable';
-import { useSheet } from '@/shared/client/queries';
+import { useSession, useSheet } from '@/shared/client/queries';
 
 export default function SheetScreen() {
   const params = useLocalSearchParams<{ sheetId: string }>();
   const sheetId = String(params.sheetId ?? '');
   const router = useRouter();
-  const { color } = useTheme();
+  const { color, scheme } = useTheme();
+  const { isPhone } = useResponsive();
   const sheet = useSheet(sheetId);
+  const session = useSession();
   // A malformed id (400) is as missing as an unknown one (404) or someone else's (403).
   const missing = isApiError(sheet.error) && [400, 403, 404].includes(sheet.error.status);
+  const user = session.data?.user;
+  const role = sheet.data?.project.role;
+  const handle = useSheetEditor(role && user ? { sheetId, editable: role !== 'viewer', user: { id: user.id, name: user.name || user.email } } : null);
+  const view = useEditorView(handle);
+  const bindings = useCanvasBindings(handle);
+  const a = handle?.actions;
+
+  const goBack = () => (sheet.data ? router.dismissTo(`/projects/${sheet.data.project.id}`) : router.replace('/'));
+
+  if (missing || sheet.error || !sheet.data || !handle || !a || !bindings.gesture) {
+    return (
+      <View style={{ flex: 1, backgroundColor: color.ground, justifyContent: 'center' }}>
+        <Stack.Screen options={{ title: 'Sheet · Phasewright', headerTitle: 'Sheet' }} />
+        {missing ? (
+          <EmptyState
+            icon="slash"
+            title="Sheet not found"
+            message="It may have been deleted, or you are not a member of its project."
+            action={<Button label="All projects" variant="secondary" onPress={() => router.replace('/')} />}
+            testID="sheet-missing"
+          />
+        ) : sheet.error ? (
+          <ErrorState title="Could not load the sheet" message={String((sheet.error as Error).message)} onRetry={() => void sheet.refetch()} testID="sheet-error" />
+        ) : (
+          <LoadingState label="Opening the sheet…" testID="sheet-loading" />
+        )}
+      </View>
+    );
+  }
+
+  const { ui } = view;
+  const found = sheet.data;
+  const inspector = (
+    <Inspector
+      subject={view.inspector}
+      editable={view.editable}
+      changeDestination={view.changeDestination}
+      onSave={a.saveFields}
+      onSetPhases={a.setLoadPhases}
+      onRotate={a.rotateSelection}
+      onDuplicate={a.duplicateSelection}
+      onDelete={a.deleteSelection}
+      onAddChange={a.addChange}
+    />
+  );
+  const results = (
+    <ResultsPanel
+      {...view.resultsPanel}
+      editable={view.editable}
+      convention={view.convention}
+      onShowCase={a.showCase}
+      onAddWhatIf={a.addWhatIf}
+      onRemoveWhatIf={a.removeWhatIf}
+      onRemoveChange={(changeId) => ui.whatIfId && a.removeChange(ui.whatIfId, changeId)}
+      onRemoveTrial={a.removeTrial}
+      onClearTrial={a.clearTrial}
+      onKeepTrial={a.keepTrial}
+      onShowFailure={a.selectElements}
+      onClosePhasor={() => a.showPhasor(null)}
+    />
+  );
+  const palette = <Palette chosen={ui.placeKind} onChoose={a.choosePlace} columns={isPhone ? 2 : 1} />;
+  const about = <SheetDetail sheet={found.sheet} project={found.project} onOpenProject={goBack} embedded />;
+  const cautions = <Cautions caution={view.caution} assumptions={view.assumptions} standardLabel={view.standardLabel} />;
+  const crew = <CrewList crew={view.crew} status={view.link.status} />;
+
+  const panels: Record<string, { title: string; body: ReactNode; testID: string } | null> = {
+    none: null,
+    palette: view.editable ? { title: 'Add an element', body: palette, testID: 'panel-palette' } : null,
+    inspector: { title: view.inspector.kind === 'element' ? view.inspector.element.name || 'Element' : 'Details', body: inspector, testID: 'panel-inspector' },
+    results: { title: 'Results', body: results, testID: 'panel-results' },
+    crew: { title: 'Crew', body: crew, testID: 'panel-crew' },
+    about: { title: 'Sheet details', body: about, testID: 'panel-about' },
+    cautions: { title: 'Cautions', body: cautions, testID: 'panel-cautions' },
+  };
+  const open = panels[ui.panel];
+  const wideExtra = !isPhone && (ui.panel === 'crew' || ui.panel === 'about' || ui.panel === 'cautions') ? open : null;
 
   return (
-    <View style={{ flex: 1, backgroundColor: color.ground, justifyContent: sheet.data ? undefined : 'center' }}>
-      <Stack.Screen options={{ title: `${sheet.data?.sheet.name ?? 'Sheet'} · Phasewright`, headerTitle: 'Sheet' }} />
-      {missing ? (
-        <EmptyState
-          icon="slash"
-          title="Sheet not found"
-          message="It may have been deleted, or you are not a member of its project."
-          action={<Button label="All projects" variant="secondary" onPress={() => router.replace('/')} />}
-          testID="sheet-missing"
-        />
-      ) : (
-        <Loadable state={loadable(sheet)} loadingLabel="Loading the sheet…" errorTitle="Could not load the sheet" testID="sheet">
-          {({ sheet: found, project }) => (
-            <SheetDetail
-              sheet={found}
-              project={project}
-              onOpenProject={() => router.dismissTo(`/projects/${project.id}`)}
+    <>
+      <Stack.Screen options={{ title: `${found.sheet.name} · Phasewright`, headerShown: false }} />
+      <EditorLayout
+        isPhone={isPhone}
+        topBar={
+          <TopBar
+            sheetName={view.snapshot.name || found.sheet.name}
+            caseLabel={view.caseLabel}
+            readOnly={!view.editable}
+            crew={view.crew}
+            status={view.link.status}
+            synced={view.link.synced}
+            compact={isPhone}
+            onBack={goBack}
+            onCrew={() => a.openPanel(ui.panel === 'crew' ? 'none' : 'crew')}
+            onAbout={() => a.openPanel(ui.panel === 'about' ? 'none' : 'about')}
+          />
+        }
+        canvas={
+          <SheetCanvas
+            scene={view.scene}
+            drawn={view.results.drawn}
+            selection={ui.selection}
+            selectedConnection={ui.selectedConnection}
+            errorIds={view.errorIds}
+            others={view.others}
+            box={ui.box}
+            connecting={ui.connecting}
+            drag={ui.drag}
+            documentOpen={view.documentOpen}
+            band={view.view.band}
+            zoom={view.view.zoom}
+            renderRect={view.view.renderRect}
+            scheme={scheme}
+            convention={view.convention}
+            showTerminals={view.editable && ui.tool === 'select'}
+            gesture={bindings.gesture}
+            onGroundNode={bindings.onGroundNode}
+            onWorldNode={bindings.onWorldNode}
+            onSize={bindings.onSize}
+          />
+        }
+        overlay={
+          <>
+            <Legend standardLabel={view.standardLabel} compact={isPhone} onCautions={() => a.openPanel('cautions')} />
+            {view.scene.elements.size === 0 && view.link.synced ? (
+              <Text variant="small" tone="muted" testID="empty-sheet-hint" pointerEvents="none">
+                {view.editable ? 'An empty sheet: add a source, a panel and loads, then drag from a terminal to connect.' : 'Nothing is drawn on this sheet yet.'}
+              </Text>
+            ) : null}
+            {ui.chooser ? (
+              <CutChooser chooser={ui.chooser} title={view.chooserTitle} open={view.chooserOpen} convention={view.convention} onChoose={(w) => a.chooseCut(ui.chooser!, w)} onClose={a.closeChooser} />
+            ) : null}
+          </>
+        }
+        footnote={<Toast message={ui.message} onDismiss={a.dismissMessage} />}
+        toolBar={
+          <ToolBar
+            tool={ui.tool}
+            editable={view.editable}
+            canUndo={view.history.canUndo}
+            canRedo={view.history.canRedo}
+            resultsOpen={ui.panel === 'results'}
+            showAdd={isPhone}
+            showResults={isPhone}
+            onTool={a.setTool}
+            onAdd={() => a.openPanel(ui.panel === 'palette' ? 'none' : 'palette')}
+            onUndo={a.undo}
+            onRedo={a.redo}
+            onResults={() => a.openPanel(ui.panel === 'results' ? 'none' : 'results')}
+          />
+        }
+        leftPane={view.editable ? <PaneSection title="Add an element">{palette}</PaneSection> : null}
+        rightPane={
+          <>
+            {wideExtra ? (
+              <PaneSection title={wideExtra.title} testID={wideExtra.testID} action={<Button label="Close" variant="quiet" compact onPress={a.closePanel} testID={`${wideExtra.testID}-close`} />}>
+                {wideExtra.body}
+              </PaneSection>
+            ) : null}
+            <PaneSection title="Inspector" testID="pane-inspector">
+              {inspector}
+            </PaneSection>
+            <PaneSection title="Results" testID="pane-results">
+              {results}
+            </PaneSection>
+          </>
+        }
+        peek={
+          view.inspector.kind === 'element' || view.inspector.kind === 'connection' || view.inspector.kind === 'many' ? (
+            <SelectionPeek
+              title={view.inspector.kind === 'element' ? view.inspector.element.name || view.inspector.kindLabel : view.inspector.kind === 'many' ? `${view.inspector.count} selected` : 'Connection'}
+              subtitle={view.inspector.kind === 'element' ? view.inspector.kindLabel : view.inspector.kind === 'connection' ? `${view.inspector.fromName} → ${view.inspector.toName}` : 'Rotate, duplicate or delete together'}
+              isBus={view.inspector.kind === 'element' && view.inspector.element.kind === 'bus'}
+              onDetails={() => a.openPanel('inspector')}
+              onPhasors={() => a.openPanel('results')}
             />
-          )}
-        </Loadable>
-      )}
-    </View>
+          ) : null
+        }
+        panel={open ? <SlidingPanel title={open.title} onClose={a.closePanel} testID={open.testID}>{open.body}</SlidingPanel> : null}
+      />
+    </>
   );
 }

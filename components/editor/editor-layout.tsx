@@ -1,0 +1,82 @@
+// Where the editor's parts go. Phone: the canvas fills the screen, one bar of tools at the bottom, details and
+// results slide up over the canvas. Wide: the palette on the left, the canvas in the middle, the inspector and
+// results on the right; the same parts, nothing hidden that the phone shows.
+import type { ReactNode } from 'react';
+import { ScrollView, StyleSheet, View } from 'react-native';
+import { space } from '../theme/tokens';
+import { useTheme } from '../theme/use-theme';
+
+export interface EditorLayoutProps {
+  isPhone: boolean;
+  topBar: ReactNode;
+  canvas: ReactNode;
+  /** Over the canvas, at its top: the legend and the cut chooser. */
+  overlay: ReactNode;
+  /** Over the canvas, near its foot: what just happened. */
+  footnote: ReactNode;
+  toolBar: ReactNode;
+  /** Wide only: the left pane. */
+  leftPane: ReactNode;
+  /** Wide only: the right pane. */
+  rightPane: ReactNode;
+  /** Phone only: the panel sliding up, if one is open. */
+  panel: ReactNode;
+  /** Phone only: the selection's bar, when nothing slides over it. */
+  peek: ReactNode;
+}
+
+export function EditorLayout(p: EditorLayoutProps) {
+  const { color } = useTheme();
+  const stage = (
+    <View style={styles.stage}>
+      {p.canvas}
+      <View style={styles.overlay} pointerEvents="box-none">
+        {p.overlay}
+      </View>
+      <View style={[styles.footnote, { bottom: p.isPhone && p.peek && !p.panel ? 76 : space.md }]} pointerEvents="box-none">
+        {p.footnote}
+      </View>
+      {p.isPhone ? (p.panel ?? p.peek) : null}
+    </View>
+  );
+  if (p.isPhone) {
+    return (
+      <View style={[styles.root, { backgroundColor: color.ground }]} testID="editor-phone">
+        {p.topBar}
+        {stage}
+        {p.toolBar}
+      </View>
+    );
+  }
+  return (
+    <View style={[styles.root, { backgroundColor: color.ground }]} testID="editor-wide">
+      {p.topBar}
+      <View style={styles.row}>
+        {p.leftPane ? (
+          <ScrollView style={[styles.left, { backgroundColor: color.surface, borderRightColor: color.line }]} contentContainerStyle={styles.leftBody}>
+            {p.leftPane}
+          </ScrollView>
+        ) : null}
+        <View style={styles.centre}>
+          {stage}
+          {p.toolBar}
+        </View>
+        <ScrollView style={[styles.right, { backgroundColor: color.surface, borderLeftColor: color.line }]} testID="side-pane">
+          {p.rightPane}
+        </ScrollView>
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  root: { flex: 1 },
+  stage: { flex: 1, position: 'relative', overflow: 'hidden' },
+  overlay: { position: 'absolute', top: space.sm, left: space.sm, right: space.sm, gap: space.sm, alignItems: 'flex-start' },
+  footnote: { position: 'absolute', left: space.sm, right: space.sm, alignItems: 'center' },
+  row: { flex: 1, flexDirection: 'row' },
+  left: { width: 232, flexGrow: 0, borderRightWidth: 1 },
+  leftBody: { padding: space.md, gap: space.md },
+  centre: { flex: 1 },
+  right: { width: 380, flexGrow: 0, borderLeftWidth: 1 },
+});

@@ -1,0 +1,67 @@
+// The crew on a sheet, from awareness: who is here (the server stamps each state's user from the session, so a
+// name cannot be claimed), each one's cursor, selection and drag preview, and a colour of their own.
+import type { Point } from '../../shared/symbols';
+
+/** What this client publishes about itself (the server adds `user`). */
+export interface LocalPresence {
+  cursor: Point | null;
+  selection: string[];
+  drag: { ids: string[]; dx: number; dy: number } | null;
+}
+
+export interface CrewMember {
+  clientId: number;
+  userId: string;
+  name: string;
+  readOnly: boolean;
+  color: string;
+  cursor: Point | null;
+  selection: string[];
+  drag: LocalPresence['drag'];
+  /** This browser tab. */
+  self: boolean;
+}
+
+/** Crew colours: distinct hues kept away from the status tints (green, amber, red) and the phase colours. */
+export const CREW_COLORS = ['#7A4FBF', '#C2477F', '#1E8A8A', '#B5651D', '#4468C8', '#6B8E23', '#9C3FA8', '#2F7DB3'];
+
+export function crewColor(userId: string): string {
+  let h = 2166136261;
+  for (let i = 0; i < userId.length; i++) h = Math.imul(h ^ userId.charCodeAt(i), 16777619);
+  return CREW_COLORS[(h >>> 0) % CREW_COLORS.length];
+}
+
+const isPoint = (v: unknown): v is Point =>
+  typeof v === 'object' && v !== null && Number.isFinite((v as Point).x) && Number.isFinite((v as Point).y);
+
+/** Reads one awareness state defensively (another client may send anything). */
+export function crewMember(clientId: number, state: Record<string, unknown>, selfId: number): CrewMember | null {
+  const user = state.user as { id?: unknown; name?: unknown; readOnly?: unknown } | undefined;
+  if (!user || typeof user.id !== 'string') return null;
+  const drag = state.drag as LocalPresence['drag'];
+  const validDrag =
+    drag && Array.isArray(drag.ids) && Number.isFinite(drag.dx) && Number.isFinite(drag.dy)
+      ? { ids: drag.ids.filter((x): x is string => typeof x === 'string'), dx: drag.dx, dy: drag.dy }
+      : null;
+  return {
+    clientId,
+    userId: user.id,
+    name: typeof user.name === 'string' && user.name ? user.name : 'Someone',
+    readOnly: user.readOnly === true,
+    color: crewColor(user.id),
+    cursor: isPoint(state.cursor) ? state.cursor : null,
+    selection: Array.isArray(state.selection) ? state.selection.filter((x): x is string => typeof x === 'string') : [],
+    drag: validDrag,
+    self: clientId === selfId,
+  };
+}
+
+/** One entry per person (a person with two tabs shows once, with the most recent state), this user first. */
+export function crewList(states: Map<number, Record<string, unknown>>, selfId: number): CrewMember[] {
+  const all: CrewMember[] = [];
+  for (const [id, state] of states) {
+    const m = crewMember(id, state, selfId);
+    if (m) all.push(m);
+  }
+  return all.sort((a, b) => Number(b.self) - Number(a.self) || a.name.localeCompare(b.name));
+}

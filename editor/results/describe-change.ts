@@ -1,0 +1,25 @@
+// A what-if change in plain words, naming the elements ("Open N of Feeder 2", "3 Ω on N at the lug of …").
+import type { WhatIfChange } from '../../shared/sheet';
+
+export function describeChange(change: WhatIfChange | Record<string, unknown>, nameOf: (id: string) => string): string {
+  const c = change as Record<string, unknown>;
+  const n = (k: string) => nameOf(String(c[k]));
+  switch (c.kind) {
+    case 'open-conductor':
+      return `Open ${c.conductor} of ${n('runId')}`;
+    case 'degrade-conductor':
+      return `${c.addedOhms} Ω in series with ${c.conductor} of ${n('runId')}`;
+    case 'open-pole':
+      return `Open pole ${c.pole} of ${n('breakerId')}`;
+    case 'open-connection':
+      return `Open ${c.conductor} of a connection`;
+    case 'degrade-connection':
+      return `${c.ohms} Ω on ${c.conductor} of a connection`;
+    case 'scale-loads':
+      return `Loads ${c.scope === 'panel' ? 'of' : 'fed from'} ${n('elementId')} × ${c.factor}`;
+    case 'shunt-fault':
+      return `Fault at ${n('busId')} (not yet solved)`;
+    default:
+      return String(c.kind ?? 'change');
+  }
+}
