@@ -20,6 +20,7 @@ export interface ElementSymbolProps {
   showLabel: boolean;
 }
 
+const BADGE_WIDTH = 78;
 const STATE_WORD: Record<string, string> = { 'back-fed': 'BACK-FED', 'de-energised': 'DE-ENERGISED', 'partly-energised': 'PARTLY LIVE' };
 
 function Lane({ lane, ink, open, baseInk, cut }: { lane: ConductorLane; ink: ConductorInk; open: boolean; baseInk: string; cut: string }) {
@@ -50,6 +51,8 @@ function ElementSymbolView({ placed, palette, conductors, status, openConductors
   const detail = showLabel ? elementDetail(element) : '';
   const stateWord = status && STATE_WORD[status.state];
   const name = element.name || element.id;
+  // The state's badge sits clear of the symbol: above a bar's right end, else beside the body.
+  const badge = element.kind === 'bus' ? { x: placed.body.x + placed.body.width - BADGE_WIDTH, y: placed.body.y - 18 } : { x: placed.body.x + placed.body.width + 6, y: placed.body.y + placed.body.height / 2 - 7 };
   return (
     <G testID={`el-${element.id}`} aria-label={`${name}${stateWord ? `, ${stateWord.toLowerCase()}` : ''}`}>
       <G testID={`sym-${element.id}`} transform={`translate(${element.x} ${element.y}) rotate(${turns * 90})`}>
@@ -91,28 +94,21 @@ function ElementSymbolView({ placed, palette, conductors, status, openConductors
         </Text>
       ) : null}
       {stateWord ? (
-        <G>
+        <G testID={`state-${element.id}`}>
           <Path
-            d={`M ${label.x - (anchor === 'end' ? 92 : anchor === 'middle' ? 46 : 0)} ${label.y - 26} h 92 v 14 h -92 Z`}
+            d={`M ${badge.x} ${badge.y} h ${BADGE_WIDTH} v 14 h ${-BADGE_WIDTH} Z`}
             stroke={hazard ? palette.hazard : palette.inkDead}
             strokeWidth={hazard ? 2 : 1}
             strokeDasharray={dead ? '3 2' : undefined}
-            fill="none"
+            fill={palette.ground}
           />
-          <Text
-            x={label.x + (anchor === 'end' ? -46 : anchor === 'middle' ? 0 : 46)}
-            y={label.y - 15}
-            fontSize={9}
-            fontFamily={fontFamily.semibold}
-            textAnchor="middle"
-            fill={hazard ? palette.hazard : palette.inkDead}
-          >
+          <Text x={badge.x + BADGE_WIDTH / 2} y={badge.y + 10.5} fontSize={9} fontFamily={fontFamily.semibold} textAnchor="middle" fill={hazard ? palette.hazard : palette.inkDead}>
             {stateWord}
           </Text>
         </G>
       ) : null}
       {status?.ungrounded && !dead ? (
-        <Text x={label.x} y={label.y + (detail ? 28 : 14)} fontSize={10} fontFamily={fontFamily.semibold} textAnchor={anchor} fill={palette.hazard}>
+        <Text x={label.x} y={label.y + (detail ? 28 : 14)} testID={`ungrounded-${element.id}`} fontSize={10} fontFamily={fontFamily.semibold} textAnchor={anchor} fill={palette.hazard}>
           UNGROUNDED
         </Text>
       ) : null}

@@ -12,7 +12,7 @@ export interface EditorLayoutProps {
   canvas: ReactNode;
   /** Over the canvas, at its top: the legend and the cut chooser. */
   overlay: ReactNode;
-  /** Over the canvas, near its foot: what just happened. */
+  /** Over the canvas, under the legend: what just happened. */
   footnote: ReactNode;
   toolBar: ReactNode;
   /** Wide only: the left pane. */
@@ -32,9 +32,9 @@ export function EditorLayout(p: EditorLayoutProps) {
       {p.canvas}
       <View style={styles.overlay} pointerEvents="box-none">
         {p.overlay}
-      </View>
-      <View style={[styles.footnote, { bottom: p.isPhone && p.peek && !p.panel ? 76 : space.md }]} pointerEvents="box-none">
-        {p.footnote}
+        <View style={styles.footnote} pointerEvents="none">
+          {p.footnote}
+        </View>
       </View>
       {p.isPhone ? (p.panel ?? p.peek) : null}
     </View>
@@ -73,7 +73,7 @@ const styles = StyleSheet.create({
   root: { flex: 1 },
   stage: { flex: 1, position: 'relative', overflow: 'hidden' },
   overlay: { position: 'absolute', top: space.sm, left: space.sm, right: space.sm, gap: space.sm, alignItems: 'flex-start' },
-  footnote: { position: 'absolute', left: space.sm, right: space.sm, alignItems: 'center' },
+  footnote: { alignSelf: 'stretch', alignItems: 'center' },
   row: { flex: 1, flexDirection: 'row' },
   left: { width: 232, flexGrow: 0, borderRightWidth: 1 },
   leftBody: { padding: space.md, gap: space.md },

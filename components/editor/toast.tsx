@@ -1,6 +1,7 @@
-// A short line over the canvas saying what just happened (or why nothing did); it fades after a few seconds.
+// A short line over the canvas saying what just happened (or why nothing did); it goes after a few seconds and
+// never takes a touch meant for the drawing under it.
 import { useEffect } from 'react';
-import { Pressable, StyleSheet } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import { radius, space } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
 import { Text } from '../ui/text';
@@ -20,8 +21,8 @@ export function Toast({ message, onDismiss }: ToastProps) {
   if (!message) return null;
   const danger = message.tone === 'danger';
   return (
-    <Pressable
-      onPress={onDismiss}
+    <View
+      pointerEvents="none"
       role={danger ? 'alert' : 'status'}
       testID="editor-message"
       style={[styles.toast, { backgroundColor: danger ? color.dangerSoft : color.ink, borderColor: danger ? color.danger : color.ink }]}
@@ -29,7 +30,7 @@ export function Toast({ message, onDismiss }: ToastProps) {
       <Text variant="small" style={{ color: danger ? color.ink : color.ground }}>
         {message.text}
       </Text>
-    </Pressable>
+    </View>
   );
 }
 
