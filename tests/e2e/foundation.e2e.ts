@@ -168,14 +168,15 @@ async function phoneJourney(browser: Browser, server: ServerProcess) {
 
   // The sheet's own page.
   await txt(page, 'Service entrance and meter').click();
+  // The sheet opens in the editor; its details are one tap away.
+  await el(page, 'editor-about').click();
   await seeTestId(page, 'sheet-detail');
-  await seeText(page, 'Drawing comes with the editor');
   const madeBy = await (await seeTestId(page, 'sheet-created-by')).textContent();
   assert(madeBy === user.name, `the sheet says it was made by ${madeBy}`);
   await screenshot(page, 'phone-sheet');
 
   // Back up to the list: the project and its one sheet are counted there.
-  await el(page, 'header-back').click();
+  await el(page, 'editor-back').click();
   await seeTestId(page, 'project-detail');
   await el(page, 'header-back').click();
   await seeTestId(page, 'project-list');
@@ -277,9 +278,12 @@ async function wideJourney(browser: Browser, server: ServerProcess) {
   assert((await byPrefix(page, 'delete-sheet-').count()) === 0, 'a viewer should see no delete buttons');
   await screenshot(page, 'wide-project-viewer');
   await txt(page, 'Farm service, 120/240 V').click();
+  await el(page, 'editor-about').click();
   await seeTestId(page, 'sheet-detail');
   await seeText(page, 'Rosa Almeida');
   await screenshot(page, 'wide-sheet');
+  await el(page, 'editor-back').click();
+  await seeTestId(page, 'project-detail');
   await signOut(page);
 
   assert(problems.length === 0, `the browser reported problems:\n${problems.join('\n')}`);
