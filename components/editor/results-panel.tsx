@@ -48,6 +48,8 @@ export interface ResultsPanelProps {
   invalid: string[];
   warnings: string[];
   loads: LoadItem[];
+  /** Loads not listed (the list shows the worst first). */
+  moreLoads: number;
   differences: DifferenceItem[] | null;
   phasor: { busName: string; view: PhasorView } | null;
   convention: PhaseConvention;
@@ -217,7 +219,7 @@ export function ResultsPanel(p: ResultsPanelProps) {
         </Block>
       ) : null}
 
-      <Block title="Voltage at each load" testID="load-list">
+      <Block title="Voltage at the loads, worst first" testID="load-list">
         {p.loads.length === 0 ? (
           <Text variant="small" tone="muted">
             No live loads yet.
@@ -236,6 +238,11 @@ export function ResultsPanel(p: ResultsPanelProps) {
             </View>
           ))
         )}
+        {p.moreLoads > 0 ? (
+          <Text variant="small" tone="muted">
+            and {p.moreLoads} more, all shown on the drawing
+          </Text>
+        ) : null}
       </Block>
     </View>
   );

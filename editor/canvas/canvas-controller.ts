@@ -20,7 +20,7 @@ export function zoomBand(zoom: number): ZoomBand {
 
 export interface ViewTargets {
   /** The element that receives the transform (translate + scale). */
-  world: { style: { transform: string; transformOrigin?: string } } | null;
+  world: { style: { transform: string; transformOrigin?: string; willChange?: string } } | null;
   /** The element whose background draws the dot grid, moved with the view. */
   ground: { style: { backgroundPosition: string; backgroundSize: string } } | null;
 }
@@ -39,6 +39,8 @@ export class CanvasController {
   private readonly offs: (() => void)[] = [];
   private frame: number | null = null;
   private viewListeners = new Set<(vp: Viewport) => void>();
+  private settleTimer: ReturnType<typeof setTimeout> | null = null;
+  private appliedZoom = 1;
 
   constructor(readonly session: SheetSession) {
     this.base = buildScene(session.mirror.current);
@@ -140,8 +142,29 @@ export class CanvasController {
 
   attach(targets: ViewTargets) {
     this.targets = targets;
-    if (targets.world) targets.world.style.transformOrigin = '0 0';
+    if (targets.world) {
+      targets.world.style.transformOrigin = '0 0';
+      // Its own layer: a pan or zoom is composited, not painted again.
+      targets.world.style.willChange = 'transform';
+    }
     this.apply();
+  }
+
+  /**
+   * A layer promoted for transforms keeps the raster scale it was drawn at; once a zoom settles, drop and restore
+   * the promotion so the drawing is drawn sharp at the new scale.
+   */
+  private settleZoom() {
+    if (this.settleTimer) clearTimeout(this.settleTimer);
+    this.settleTimer = setTimeout(() => {
+      const world = this.targets.world;
+      if (!world) return;
+      world.style.willChange = 'auto';
+      const raf = typeof requestAnimationFrame === 'function' ? requestAnimationFrame : (f: () => void) => setTimeout(f, 16);
+      raf(() => {
+        if (this.targets.world === world) world.style.willChange = 'transform';
+      });
+    }, 300);
   }
 
   setSize(width: number, height: number) {
@@ -192,6 +215,10 @@ export class CanvasController {
     const { x, y, zoom } = this.viewport;
     const world = this.targets.world;
     if (world) world.style.transform = `translate(${x}px, ${y}px) scale(${zoom})`;
+    if (zoom !== this.appliedZoom) {
+      this.appliedZoom = zoom;
+      this.settleZoom();
+    }
     const ground = this.targets.ground;
     if (ground) {
       const step = 20 * zoom * (zoom < 0.5 ? 4 : 1);
@@ -230,6 +257,7 @@ export class CanvasController {
   }
 
   destroy() {
+    if (this.settleTimer) clearTimeout(this.settleTimer);
     for (const off of this.offs) off();
     this.machine.cancel();
   }

@@ -23,7 +23,7 @@ export interface CrewMember {
 }
 
 /** Crew colours: distinct hues kept away from the status tints (green, amber, red) and the phase colours. */
-export const CREW_COLORS = ['#7A4FBF', '#C2477F', '#1E8A8A', '#B5651D', '#4468C8', '#6B8E23', '#9C3FA8', '#2F7DB3'];
+export const CREW_COLORS = ['#7A4FBF', '#C2477F', '#1E8A8A', '#C0601A', '#3558C0', '#6B7F1F'];
 
 export function crewColor(userId: string): string {
   let h = 2166136261;

@@ -110,19 +110,20 @@ function busTags(element: SheetElement, bus: BusResult): ValueTag[] {
  * The bus conductors a load's own terminals land on (a line-to-neutral load's A may sit on the bus's B), so its
  * tags name the phase it is really on.
  */
-function loadLanding(sheet: Sheet, loadId: string): Partial<Record<string, string>> {
+function supplyLandings(sheet: Sheet): Map<string, Partial<Record<string, string>>> {
+  const out = new Map<string, Partial<Record<string, string>>>();
   for (const c of Object.values(sheet.connections)) {
-    if (c.to.elementId === loadId && c.to.terminal === 'supply') {
-      return Object.fromEntries(Object.entries(c.conductorMap).map(([from, to]) => [to, from]));
+    if (c.to.terminal === 'supply' && !out.has(c.to.elementId)) {
+      out.set(c.to.elementId, Object.fromEntries(Object.entries(c.conductorMap).map(([from, to]) => [to, from])));
     }
-    if (c.from.elementId === loadId && c.from.terminal === 'supply') return { ...c.conductorMap };
+    if (c.from.terminal === 'supply' && !out.has(c.from.elementId)) out.set(c.from.elementId, { ...c.conductorMap });
   }
-  return {};
+  return out;
 }
 
-function loadTags(sheet: Sheet, element: SheetElement, load: LoadResult): ValueTag[] {
+function loadTags(landings: Map<string, Partial<Record<string, string>>>, element: SheetElement, load: LoadResult): ValueTag[] {
   if (load.state === 'de-energised') return [];
-  const landing = loadLanding(sheet, element.id);
+  const landing = landings.get(element.id) ?? {};
   return load.elements.map((e, i) => {
     const extra = e.constantImpedanceVolts !== undefined ? `; ${formatVolts(e.constantImpedanceVolts)} V if every load were constant impedance` : '';
     const what = load.elements.length === 1 ? 'v' : `v-${i}`;
@@ -144,6 +145,40 @@ function runTags(element: SheetElement, run: RunResult): ValueTag[] {
   return out;
 }
 
+// Statuses are shared objects (a handful of combinations), so a drawing that did not change state is not redrawn.
+const STATUSES = new Map<string, ElementStatus>();
+function statusOf(state: DrawnState, ungrounded: boolean): ElementStatus {
+  const key = `${state}|${ungrounded}`;
+  let s = STATUSES.get(key);
+  if (!s) STATUSES.set(key, (s = { state, ungrounded }));
+  return s;
+}
+
+const sameTags = (a: ValueTag[], b: ValueTag[]) =>
+  a.length === b.length && a.every((t, i) => t.key === b[i].key && t.text === b[i].text && t.label === b[i].label && t.standing === b[i].standing && t.description === b[i].description);
+
+/**
+ * Keeps the previous solve's stack objects where nothing drawn changed (same place, same texts and standings),
+ * so the canvas redraws only the tags whose figures moved.
+ */
+export function reuseUnchanged(previous: DrawnResults | null, next: DrawnResults): DrawnResults {
+  if (!previous) return next;
+  const old = new Map(previous.stacks.map((s) => [s.elementId, s]));
+  let reused = 0;
+  const stacks = next.stacks.map((s) => {
+    const p = old.get(s.elementId);
+    if (p && p.x === s.x && p.y === s.y && p.align === s.align && sameTags(p.tags, s.tags)) {
+      reused++;
+      return p;
+    }
+    return s;
+  });
+  if (reused === 0) return next;
+  const tags = new Map<string, ValueTag>();
+  for (const s of stacks) for (const t of s.tags) tags.set(t.key, t);
+  return { ...next, stacks, tags };
+}
+
 export function drawnResults(sheet: Sheet, result: SolveResult): DrawnResults {
   const stacks: TagStack[] = [];
   const tags = new Map<string, ValueTag>();
@@ -158,14 +193,15 @@ export function drawnResults(sheet: Sheet, result: SolveResult): DrawnResults {
   for (const bus of result.buses) {
     const element = sheet.elements[bus.busId];
     if (!element) continue;
-    status.set(bus.busId, { state: bus.state, ungrounded: bus.ungrounded });
+    status.set(bus.busId, statusOf(bus.state, bus.ungrounded));
     place(element, busTags(element, bus));
   }
+  const landings = supplyLandings(sheet);
   for (const load of result.loads) {
     const element = sheet.elements[load.loadId];
     if (!element) continue;
-    status.set(load.loadId, { state: load.state, ungrounded: false });
-    place(element, loadTags(sheet, element, load));
+    status.set(load.loadId, statusOf(load.state, false));
+    place(element, loadTags(landings, element, load));
   }
   for (const run of result.runs) {
     const element = sheet.elements[run.runId];

@@ -179,8 +179,10 @@ export function createToolActions(deps: ActionDeps): ToolActions {
       if (!kind || !deps.editable()) return;
       const names = [...mirror.current.elements.values()].map((e) => e.name);
       const at = { x: snap(world.x, GRID), y: snap(world.y, GRID) };
-      const id = commands.addElement(newElement(kind, at, names));
+      const element = newElement(kind, at, names);
+      const id = commands.addElement(element);
       ui.set({ tool: 'select', placeKind: null, selection: new Set([id]), selectedConnection: null, phasorBusId: null });
+      say(`Placed ${String(element.name)}: drag from its terminals to connect it`);
     },
     cutAt(world) {
       const index = deps.index();

@@ -32,6 +32,8 @@ const EMPTY = {
   mirror: new Store({ snapshot: { version: 0, name: '', settings: {}, elements: new Map(), connections: new Map(), whatIfs: new Map() } }),
 };
 
+const LOAD_ROWS = 30;
+
 const PAIRS: PhaseId[][] = [
   ['A', 'B'],
   ['B', 'C'],
@@ -120,11 +122,14 @@ export function useEditorView(handle: EditorHandle | null) {
       ...[...snapshot.whatIfs.values()].sort((a, b) => a.name.localeCompare(b.name)).map((w) => ({ id: w.id, name: w.name || 'Unnamed what-if', changes: Object.keys(w.changes).length })),
     ];
     const drawn = results.drawn;
-    const loads = drawn
+    // Worst first, and only as many as a panel can show (a big sheet has hundreds of loads).
+    const severity = { outside: 0, tolerable: 1, plain: 2, normal: 3 } as const;
+    const allLoads = drawn
       ? [...drawn.tags.values()]
           .filter((t) => snapshot.elements.get(t.elementId)?.kind === 'load')
-          .map((t) => ({ key: t.key, name: nameOf(t.elementId), label: t.label, volts: t.value, standing: t.standing }))
+          .sort((x, y) => severity[x.standing] - severity[y.standing] || x.key.localeCompare(y.key))
       : [];
+    const loads = allLoads.slice(0, LOAD_ROWS).map((t) => ({ key: t.key, name: nameOf(t.elementId), label: t.label, volts: t.value, standing: t.standing }));
     const diff =
       results.active && results.drawnBase && drawn
         ? differences(results.drawnBase, drawn).map((d) => ({ ...d, name: nameOf(d.elementId) }))
@@ -138,8 +143,9 @@ export function useEditorView(handle: EditorHandle | null) {
       solve: { ms: results.solveMs, where: results.where, place: session?.solvePlace() ?? 'page' },
       failure: results.failure ? { message: results.failure.message, elementIds: results.failure.elementIds } : null,
       invalid: results.invalid.map((i) => `${nameOf(i.elementId ?? '')}: ${i.message}`),
-      warnings: (shown?.warnings ?? []).map((w) => w.message),
+      warnings: (shown?.warnings ?? []).slice(0, 20).map((w) => w.message),
       loads,
+      moreLoads: allLoads.length - loads.length,
       differences: diff,
       phasor: bus && bus.state !== 'de-energised' ? { busName: bus.name || bus.busId, view: phasorView(bus) } : null,
     };

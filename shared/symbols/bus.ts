@@ -1,7 +1,7 @@
 // Bus or panelboard: a long bar drawn as a narrow outlined rectangle; connections land anywhere along it.
 import type { SymbolGeometry } from './types';
 
-export const BUS_HALF_LENGTH = 120;
+export const BUS_HALF_LENGTH = 80;
 const H = 4;
 
 export function busSymbol(): SymbolGeometry {

@@ -194,13 +194,13 @@ describe('cut', () => {
 });
 
 describe('finger-sized targets', () => {
-  it('at a quarter zoom, a tap 20 screen px from a load still selects it; the bar of a panel too', () => {
+  it('at a quarter zoom, a tap 20 screen px from a load still selects it; 10 px off the end of a bar selects the bar', () => {
     const { canvas } = editorOn();
     const zoom = 0.25;
     const worldPerPx = 1 / zoom;
     const index = canvas.sceneIndex();
     expect(hitTest(index, { x: -60 + 20 * worldPerPx * 0.7, y: 400 + 20 * worldPerPx * 0.7 }, zoom, { terminals: false })).toEqual({ kind: 'element', elementId: 'la' });
-    expect(hitTest(index, { x: 100, y: 280 - 18 * worldPerPx }, zoom, { terminals: false })).toEqual({ kind: 'element', elementId: 'panel' });
+    expect(hitTest(index, { x: 80, y: 280 - 10 * worldPerPx }, zoom, { terminals: false })).toEqual({ kind: 'element', elementId: 'panel' });
     // and far from everything it is the canvas
     expect(hitTest(index, { x: 600, y: 600 }, zoom, { terminals: false })).toEqual({ kind: 'canvas' });
   });
