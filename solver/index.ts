@@ -4,3 +4,7 @@ export type { SolveFailure, FailureCode } from './solve/solve-network';
 export type * from './results/types';
 export { buildNetwork } from './network/build-network';
 export type { LoadModel } from './solve/load-iteration';
+export { solveFault, prepareFaults, faultResult, faultCase, withTransformerTolerance, TRANSFORMER_IMPEDANCE_TOLERANCE, type FaultOutcome } from './faults/solve-fault';
+export { peakFactor, asymmetricalPeakAmperes } from './faults/peak-factor';
+export type * from './faults/fault-types';
+export { faultStudy, testXOverR, type FaultStudyOptions, type FaultStudyResult, type FaultStudyCase, type DutyCheck, type DutyStatus, type ServiceMarking } from './faults/fault-study';

@@ -180,4 +180,6 @@ export interface SolveResult {
   warnings: ResultWarning[];
   assumptions: string[];
   caution: string;
+  /** A shunt-fault what-if: the fault's own figures (the rest of the result is the state during the fault). */
+  fault?: import('../faults/fault-types').FaultResultSection;
 }

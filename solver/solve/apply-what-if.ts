@@ -4,9 +4,10 @@ import { changeProblem } from '../../shared/sheet';
 import type { Modifications } from '../network/modifications';
 import { connectionConductorKey, NO_MODIFICATIONS, poleKey, runConductorKey } from '../network/modifications';
 import { downstreamElements } from './downstream';
+import type { FaultSpec } from '../faults/fault-types';
 
 export type WhatIfOutcome =
-  | { ok: true; mods: Modifications; warnings: { message: string; elementId?: string }[]; touchesNeutral: boolean }
+  | { ok: true; mods: Modifications; warnings: { message: string; elementId?: string }[]; touchesNeutral: boolean; fault?: FaultSpec }
   | { ok: false; code: 'unknown-what-if' | 'not-supported'; message: string; elementIds: string[] };
 
 export function applyWhatIf(sheet: Sheet, whatIfId: string | undefined): WhatIfOutcome {
@@ -32,17 +33,25 @@ export function applyWhatIf(sheet: Sheet, whatIfId: string | undefined): WhatIfO
   };
   const warnings: { message: string; elementId?: string }[] = [];
   let touchesNeutral = false;
+  let fault: FaultSpec | undefined;
   const neutral = (c: ConductorId) => {
     if (c === 'N') touchesNeutral = true;
   };
   for (const [changeId, change] of Object.entries(whatIf.changes)) {
     if (change.kind === 'shunt-fault') {
-      return {
-        ok: false,
-        code: 'not-supported',
-        message: `what-if ${whatIfId}, change ${changeId}: shunt faults are not yet supported by the solver (a later release adds them)`,
-        elementIds: [change.busId],
-      };
+      if (fault) {
+        return {
+          ok: false,
+          code: 'not-supported',
+          message: `what-if ${whatIfId}, change ${changeId}: one shunt fault per what-if (this one has more)`,
+          elementIds: [change.busId],
+        };
+      }
+      const problem = changeProblem(sheet, change);
+      if (problem) return { ok: false, code: 'not-supported', message: `what-if ${whatIfId}, change ${changeId}: ${problem}`, elementIds: [change.busId] };
+      const phases = (['A', 'B', 'C'] as const).filter((p) => change.phases?.[p]);
+      fault = { busId: change.busId, faultType: change.faultType, to: change.to, faultOhms: change.faultOhms, ...(phases.length ? { phases } : {}) };
+      continue;
     }
     const problem = changeProblem(sheet, change);
     if (problem) {
@@ -81,5 +90,5 @@ export function applyWhatIf(sheet: Sheet, whatIfId: string | undefined): WhatIfO
         break;
     }
   }
-  return { ok: true, mods, warnings, touchesNeutral };
+  return { ok: true, mods, warnings, touchesNeutral, ...(fault ? { fault } : {}) };
 }

@@ -9,6 +9,7 @@ import { deriveResults } from '../results/derive';
 import type { ResultWarning, SolveResult } from '../results/types';
 import { applyWhatIf } from './apply-what-if';
 import { solveBuiltNetwork, type SolveFailure } from './solve-network';
+import { faultResult, prepareFaults } from '../faults/solve-fault';
 
 export type SolveOutcome = { ok: true; result: SolveResult } | { ok: false; error: SolveFailure };
 
@@ -36,6 +37,12 @@ export class SheetSolver {
     if (whatIfId !== undefined && !this.base) this.solveOnce(undefined); // the base factors, for reuse
     const applied = applyWhatIf(this.sheet, whatIfId);
     if (!applied.ok) return { ok: false, error: { code: applied.code, message: applied.message, elementIds: applied.elementIds } };
+    if (applied.fault) {
+      // A shunt fault: every load at constant impedance, compensated at the fault terminals.
+      const prepared = prepareFaults(this.sheet, applied.mods);
+      if (!prepared.ok) return prepared;
+      return faultResult(prepared.prepared, applied.fault, [...this.readWarnings.map((w) => ({ ...w })), ...applied.warnings]);
+    }
     const network = buildNetwork(this.sheet, applied.mods);
     const outcome = solveBuiltNetwork(network, this.sheet.settings, whatIfId === undefined ? undefined : this.base);
     if (!outcome.ok) return outcome;

@@ -1,5 +1,5 @@
 // What-ifs as data over the base case: openings, degraded conductors and lugs, open poles, load scaling, and
-// faults rejected for now. An opening reuses the base factors (block update) and agrees with a fresh solve.
+// shunt faults (one per what-if). An opening reuses the base factors (block update) and agrees with a fresh solve.
 import { describe, expect, it } from 'vitest';
 import { SheetSolver, solveSheet, type SolveResult } from '../../solver';
 import { validateSheet } from '../../shared/sheet';
@@ -91,13 +91,20 @@ describe('what-ifs', () => {
     expect(Math.abs(kw(panelOnly, 'apt-bed') - kw(base, 'apt-bed'))).toBeLessThan(1e-3);
   });
 
-  it('rejects shunt faults as not yet supported, with the change named', () => {
-    const sheet = building().whatIf('fault', { f: { kind: 'shunt-fault', busId: 'panel', faultType: 'line-to-ground' } }).sheet();
-    const outcome = new SheetSolver(sheet).solve('fault');
-    expect(outcome.ok).toBe(false);
-    if (outcome.ok) return;
-    expect(outcome.error.code).toBe('not-supported');
-    expect(outcome.error.message).toMatch(/what-if fault, change f: shunt faults are not yet supported/);
+  it('solves a shunt-fault what-if and rejects two faults in one what-if, with the change named', () => {
+    const sheet = building()
+      .whatIf('fault', { f: { kind: 'shunt-fault', busId: 'panel', faultType: 'line-to-ground' } })
+      .whatIf('two', { f: { kind: 'shunt-fault', busId: 'panel', faultType: 'line-to-ground' }, g: { kind: 'shunt-fault', busId: 'apt', faultType: 'three-phase' } })
+      .sheet();
+    const solver = new SheetSolver(sheet);
+    const fault = ok(solver.solve('fault'));
+    // common practice: a bolted ground fault at a panel draws far more than the panel's 200 A rating
+    expect(fault.fault?.symmetricalKa).toBeGreaterThan(1);
+    const two = solver.solve('two');
+    expect(two.ok).toBe(false);
+    if (two.ok) return;
+    expect(two.error.code).toBe('not-supported');
+    expect(two.error.message).toMatch(/what-if two, change g: one shunt fault per what-if/);
   });
 
   it('names the what-ifs it has when asked for one it does not', () => {
