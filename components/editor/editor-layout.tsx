@@ -12,6 +12,8 @@ export interface EditorLayoutProps {
   canvas: ReactNode;
   /** Over the canvas, at its top: the legend and the cut chooser. */
   overlay: ReactNode;
+  /** Over the canvas, in its top right corner: the view's own buttons. */
+  corner: ReactNode;
   /** Over the canvas, under the legend: what just happened. */
   footnote: ReactNode;
   toolBar: ReactNode;
@@ -36,6 +38,7 @@ export function EditorLayout(p: EditorLayoutProps) {
           {p.footnote}
         </View>
       </View>
+      <View style={styles.corner}>{p.corner}</View>
       {p.isPhone ? (p.panel ?? p.peek) : null}
     </View>
   );
@@ -74,6 +77,7 @@ const styles = StyleSheet.create({
   stage: { flex: 1, position: 'relative', overflow: 'hidden' },
   overlay: { position: 'absolute', top: space.sm, left: space.sm, right: space.sm, gap: space.sm, alignItems: 'flex-start' },
   footnote: { alignSelf: 'stretch', alignItems: 'center' },
+  corner: { position: 'absolute', top: space.sm, right: space.sm, gap: space.xs },
   row: { flex: 1, flexDirection: 'row' },
   left: { width: 232, flexGrow: 0, borderRightWidth: 1 },
   leftBody: { padding: space.md, gap: space.md },

@@ -14,6 +14,9 @@ import { clampZoom, fitRect, panBy, screenToWorld, zoomAt, type Viewport } from 
 /** Coarse zoom levels: the drawing hides value tags when far out and thins the labels. */
 export type ZoomBand = 'far' | 'mid' | 'near';
 
+/** The legend's height over the canvas, kept clear when the sheet is fitted into view. */
+const FIT_TOP_INSET = 110;
+
 export function zoomBand(zoom: number): ZoomBand {
   return zoom < 0.35 ? 'far' : zoom < 0.7 ? 'mid' : 'near';
 }
@@ -198,12 +201,16 @@ export class CanvasController {
     this.setViewport(zoomAt(this.viewport, focus, factor));
   }
 
+  /** Shows the whole sheet, below the legend that sits over the canvas's top. */
   fitAll() {
     const b = this.scene.bounds;
     if (this.size.width <= 0) return;
     this.fitted = true;
-    const pad = { x: b.x - 40, y: b.y - 40, width: b.width + 200, height: b.height + 100 };
-    this.setViewport(fitRect(this.scene.elements.size ? pad : { x: 0, y: 0, width: 0, height: 0 }, this.size));
+    const top = Math.min(FIT_TOP_INSET, this.size.height / 4);
+    // Room on the right for the value tags beside buses and runs.
+    const pad = { x: b.x - 40, y: b.y - 40, width: b.width + 200, height: b.height + 110 };
+    const vp = fitRect(this.scene.elements.size ? pad : { x: 0, y: 0, width: 0, height: 0 }, { width: this.size.width, height: this.size.height - top }, 24);
+    this.setViewport({ ...vp, y: vp.y + top });
   }
 
   /** Where a new element goes when placed from a button (the middle of the view). */

@@ -48,7 +48,11 @@ export class SolveScheduler {
   request(input: SolveInput): void {
     if (this.destroyed) return;
     this.pending = { input, at: performance.now() };
-    if (!this.running && !this.timer) this.timer = setTimeout(() => this.startNext(), 0);
+    if (this.running || this.timer) return;
+    // The worker takes it at once (the page then redraws what changed while the worker solves); a solve here waits
+    // for the current task to end, so a burst of changes in one task costs one solve.
+    if (this.placeFor(Object.keys(input.sheet.elements).length) === 'worker') this.startNext();
+    else this.timer = setTimeout(() => this.startNext(), 0);
   }
 
   /** Where a sheet of this size is solved now. */

@@ -17,6 +17,7 @@ import { PaneSection, SlidingPanel } from '@/components/editor/sliding-panel';
 import { Toast } from '@/components/editor/toast';
 import { ToolBar } from '@/components/editor/tool-bar';
 import { TopBar } from '@/components/editor/top-bar';
+import { ViewButtons } from '@/components/editor/view-buttons';
 import { useResponsive } from '@/components/layout/use-responsive';
 import { SheetDetail } from '@/components/projects/sheet-detail';
 import { useTheme } from '@/components/theme/use-theme';
@@ -172,6 +173,7 @@ export default function SheetScreen() {
             ) : null}
           </>
         }
+        corner={<ViewButtons onFit={a.fit} onZoomIn={() => a.zoomBy(1.25)} onZoomOut={() => a.zoomBy(0.8)} compact={isPhone} />}
         footnote={<Toast message={ui.message} onDismiss={a.dismissMessage} />}
         toolBar={
           <ToolBar
