@@ -380,14 +380,17 @@ export const changeSchema = z.discriminatedUnion(
       factor: nonNegative('factor').max(100),
       scope: z.enum(['downstream', 'panel']).default('downstream'),
     }),
-    /** Designed here; the solver rejects it as not yet supported until the fault issue lands. */
+    /** A shunt fault at a bus through faultOhms + j faultReactanceOhms (both 0: bolted); one per what-if. */
     z.object({
       kind: z.literal('shunt-fault'),
       busId: idString,
       faultType: z.enum(SHUNT_FAULT_TYPES),
       phases: z.partialRecord(phaseIdSchema, z.boolean()).optional(),
       to: z.enum(['PE', 'N', 'earth']).default('PE'),
+      /** Resistance of the fault path. */
       faultOhms: nonNegative('faultOhms').default(0),
+      /** Reactance of the fault path (added later; older documents without it read as 0, a resistive fault). */
+      faultReactanceOhms: nonNegative('faultReactanceOhms').default(0),
     }),
   ],
   { error: 'change kind must be open-conductor, degrade-conductor, open-pole, open-connection, degrade-connection, scale-loads or shunt-fault' },
