@@ -41,6 +41,9 @@ export function runResult(ctx: ResultContext, run: RunElement): RunResult | unde
   const currents = ctx.currents.perStamp[layout.stampIndex];
   const count = currentCarrying(ctx, run, layout);
   const result: RunResult = { runId: run.id, name: run.name, conductors: {}, lossKw: absorbedVa(network, layout.stampIndex, volts, ctx.currents).re / 1000 };
+  if (layout.conductors.some((k) => k.conductor === 'N') && layout.conductors.some((k) => PHASES.includes(k.conductor))) {
+    result.neutralSystem = neutralSystem(ctx, layout);
+  }
   layout.conductors.forEach((k, i) => {
     const current = phasor(currents[i].re, currents[i].im);
     const entry: RunResult['conductors'][ConductorId] = { current, open: k.open, addedOhms: k.addedOhms };

@@ -97,6 +97,8 @@ export interface RunResult {
   lossKw: number;
   /** Largest drop along the run of a phase-to-neutral (or line-to-line) voltage, percent of nominal. */
   voltageDropPercent?: number;
+  /** With a neutral and a phase: the system the neutral belongs to, read from the nominal phase angles (NEC 310.15(E)). */
+  neutralSystem?: 'wye-4-wire' | 'split-phase' | 'delta';
 }
 
 export interface BreakerResult {
