@@ -2,7 +2,7 @@
 // 250.142(B), from memory); anywhere else it puts neutral current on the equipment ground, which is flagged with it.
 import type { Sheet } from '../../shared/sheet';
 import type { BondResult, RunResult } from '../results/types';
-import type { FeedTree } from './feed-tree';
+import type { FeedTree } from '../solve/feed-tree';
 import type { BondFinding } from './types';
 
 /** The runs that feed a bus: walking up the tree through breakers and connections to the first run. */

@@ -3,10 +3,10 @@
 // small-conductor limit of 240.4(D) against the breaker upstream. The rule applied is stated with each figure.
 import { formatSize } from '../../shared/conductor-sizes';
 import type { ConductorId, RunElement, Sheet } from '../../shared/sheet';
-import { ampacity, neutralCountsAsCurrentCarrying, smallConductorOvercurrentLimit, type InsulationTempC } from '../conductors';
+import { ampacity, countCurrentCarrying, smallConductorOvercurrentLimit, type InsulationTempC } from '../conductors';
 import type { RunResult } from '../results/types';
-import { nearestUpstream, type FeedTree } from './feed-tree';
-import type { AmpacityRule, ConductorLoading } from './types';
+import { nearestUpstream, type FeedTree } from '../solve/feed-tree';
+import type { ConductorLoading } from './types';
 
 const PHASES: ConductorId[] = ['A', 'B', 'C'];
 export const HIGH_LOADING_PERCENT = 80;
@@ -16,25 +16,16 @@ export interface CircuitLoadShare {
   nonLinearFraction: number;
 }
 
-/** Why the neutral counts or not, 310.15(E), in words. */
-function neutralReason(system: NonNullable<RunResult['neutralSystem']>, phases: number, nonLinear: boolean): { counted: boolean; text: string } {
-  if (phases === 1) return { counted: true, text: 'the neutral of a two-wire circuit carries the whole current and counts' };
-  const counted = neutralCountsAsCurrentCarrying({ system, phasesInCircuit: Math.min(phases, 3), nonLinearMajority: nonLinear });
-  if (system === 'wye-4-wire' && phases === 2) return { counted, text: 'the neutral counts, 310.15(E)(2): two phases and the neutral of a 4-wire wye' };
-  if (system === 'wye-4-wire' && nonLinear) return { counted, text: 'the neutral counts, 310.15(E)(3): a 4-wire wye circuit whose load is mostly non-linear' };
-  if (system === 'wye-4-wire') return { counted, text: 'the neutral is not counted, 310.15(E)(1): it carries only the unbalanced current' };
-  if (system === 'split-phase') return { counted, text: 'the neutral is not counted, 310.15(E)(1): on 120/240 V it carries only the unbalance of the two halves' };
-  return { counted, text: 'the neutral is not counted, 310.15(E)(1): on a four-wire delta it carries only the unbalance of the 120/240 V part' };
-}
-
-function ruleFor(run: RunElement, result: RunResult, share: CircuitLoadShare, majority: number): Omit<AmpacityRule, 'tableAmperes' | 'ambientFactor' | 'adjustmentFactor' | 'text'> & { reason?: string } {
+function currentCarryingBasis(run: RunElement, result: RunResult, share: CircuitLoadShare, majority: number) {
   const phases = PHASES.filter((p) => run.conductors[p]).length;
   const hasNeutral = run.conductors.N !== undefined;
-  const base = { table: 'NEC 310.16' as const, insulationTempC: run.insulationTempC as InsulationTempC, ambientC: run.ambientC };
-  if (run.conductorsInRaceway !== undefined) return { ...base, currentCarrying: run.conductorsInRaceway, countFrom: 'sheet', reason: 'count given on the sheet' };
-  if (!hasNeutral || phases === 0 || !result.neutralSystem) return { ...base, currentCarrying: Math.max(phases, 1), countFrom: 'counted' };
-  const { counted, text } = neutralReason(result.neutralSystem, phases, share.nonLinearFraction > majority);
-  return { ...base, currentCarrying: phases + (counted ? 1 : 0), countFrom: 'counted', neutralCounted: counted, reason: text };
+  return countCurrentCarrying({
+    phases,
+    hasNeutral,
+    ...(result.neutralSystem ? { system: result.neutralSystem } : {}),
+    nonLinearMajority: share.nonLinearFraction > majority,
+    ...(run.conductorsInRaceway !== undefined ? { given: run.conductorsInRaceway } : {}),
+  });
 }
 
 export function conductorLoadings(
@@ -46,7 +37,7 @@ export function conductorLoadings(
   majority: number,
 ): ConductorLoading[] {
   const out: ConductorLoading[] = [];
-  const basis = ruleFor(run, result, share, majority);
+  const basis = currentCarryingBasis(run, result, share, majority);
   const breakerId = nearestUpstream(sheet, tree, run.id, 'breaker');
   const breaker = breakerId ? sheet.elements[breakerId] : undefined;
   const breakerRating = breaker?.kind === 'breaker' ? breaker.ratingAmperes : undefined;
@@ -78,16 +69,26 @@ export function conductorLoadings(
       continue;
     }
     try {
-      const a = ampacity({ size: data.size, material: data.material, insulationTempC: run.insulationTempC, ambientC: run.ambientC, currentCarryingConductors: basis.currentCarrying });
+      const a = ampacity({ size: data.size, material: data.material, insulationTempC: run.insulationTempC, ambientC: run.ambientC, currentCarryingConductors: basis.count });
       const amperes = a.amperes * run.parallelSets;
       const metal = data.material === 'copper' ? 'Cu' : 'Al';
       const text =
         `NEC 310.16 ${formatSize(data.size)} ${metal} ${run.insulationTempC} °C ${a.tableAmperes} A` +
         ` × ${a.ambientFactor.toFixed(3)} (310.15(B), ${run.ambientC} °C ambient)` +
-        ` × ${a.adjustmentFactor} (310.15(C)(1), ${basis.currentCarrying} current-carrying${basis.reason ? `: ${basis.reason}` : ''})` +
+        ` × ${a.adjustmentFactor} (310.15(C)(1), ${basis.count} current-carrying${basis.reason ? `: ${basis.reason}` : ''})` +
         ` × ${run.parallelSets} set${run.parallelSets > 1 ? 's' : ''} = ${amperes.toFixed(1)} A`;
-      const { reason: _reason, ...rest } = basis;
-      row.rule = { ...rest, tableAmperes: a.tableAmperes, ambientFactor: a.ambientFactor, adjustmentFactor: a.adjustmentFactor, text };
+      row.rule = {
+        table: 'NEC 310.16',
+        insulationTempC: run.insulationTempC as InsulationTempC,
+        tableAmperes: a.tableAmperes,
+        ambientC: run.ambientC,
+        ambientFactor: a.ambientFactor,
+        currentCarrying: basis.count,
+        countFrom: basis.countFrom,
+        adjustmentFactor: a.adjustmentFactor,
+        ...(basis.neutralCounted !== undefined ? { neutralCounted: basis.neutralCounted } : {}),
+        text,
+      };
       row.ampacityAmperes = amperes;
       row.percentOfAmpacity = (100 * row.amperes) / amperes;
       row.status = row.percentOfAmpacity > 100 ? 'over' : row.percentOfAmpacity >= HIGH_LOADING_PERCENT ? 'high' : 'ok';

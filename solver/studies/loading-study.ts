@@ -1,6 +1,6 @@
 // The loading and voltage-drop study over one solve: conductors against ampacity, breakers against rating, voltage
 // drop per run and from the start of each zone, misplaced neutral-to-ground bonds. NEC rules; IEC later.
-import type { LoadKind, Sheet } from '../../shared/sheet';
+import type { Sheet } from '../../shared/sheet';
 import { CAUTION } from '../results/derive';
 import type { SolveResult } from '../results/types';
 import { solveSheet } from '../solve/solve-sheet';
@@ -8,7 +8,7 @@ import type { SolveFailure } from '../solve/solve-network';
 import { bondFindings } from './bonds';
 import { breakerLoading } from './breaker-loading';
 import { conductorLoadings } from './conductor-loading';
-import { feedTree, type FeedTree } from './feed-tree';
+import { DEFAULT_NON_LINEAR_KINDS, DEFAULT_NON_LINEAR_MAJORITY, feedTree, nonLinearShares } from '../solve/feed-tree';
 import type { BreakerLoading, ConductorLoading, LoadingStudy, LoadingStudyOptions, VoltageDropEntry } from './types';
 import { voltageDrops } from './voltage-drop';
 
@@ -22,27 +22,6 @@ export const LOADING_STUDY_NOTES = [
 
 type Outcome = { ok: true; study: LoadingStudy } | { ok: false; error: SolveFailure };
 
-/** kW downstream of each element, all and non-linear, from the solved loads (a post-order walk of the feed tree). */
-function downstreamShares(sheet: Sheet, tree: FeedTree, result: SolveResult, nonLinearKinds: Set<LoadKind>): Map<string, { all: number; nonLinear: number }> {
-  const kw = new Map(result.loads.map((l) => [l.loadId, Math.max(0, l.kw)]));
-  const totals = new Map<string, { all: number; nonLinear: number }>();
-  for (let k = tree.order.length - 1; k >= 0; k--) {
-    const id = tree.order[k];
-    const e = sheet.elements[id];
-    const own = e?.kind === 'load' ? kw.get(id) ?? 0 : 0;
-    const t = { all: own, nonLinear: e?.kind === 'load' && nonLinearKinds.has(e.loadKind) ? own : 0 };
-    for (const child of tree.children.get(id) ?? []) {
-      const c = totals.get(child);
-      if (c) {
-        t.all += c.all;
-        t.nonLinear += c.nonLinear;
-      }
-    }
-    totals.set(id, t);
-  }
-  return totals;
-}
-
 const worstConductorFirst = (a: ConductorLoading, b: ConductorLoading) => (b.percentOfAmpacity ?? -1) - (a.percentOfAmpacity ?? -1);
 const worstBreakerFirst = (a: BreakerLoading, b: BreakerLoading) => (b.percentOfRating ?? -1) - (a.percentOfRating ?? -1);
 const worstDropFirst = (a: VoltageDropEntry, b: VoltageDropEntry) => (b.cumulativePercent ?? -1) - (a.cumulativePercent ?? -1);
@@ -50,14 +29,13 @@ const worstDropFirst = (a: VoltageDropEntry, b: VoltageDropEntry) => (b.cumulati
 /** The study from a result already solved for the sheet (and what-if). */
 export function loadingStudyOf(sheet: Sheet, result: SolveResult, options: Omit<LoadingStudyOptions, 'whatIfId' | 'result'> = {}): LoadingStudy {
   const tree = feedTree(sheet);
-  const majority = options.nonLinearMajorityFraction ?? 0.5;
-  const shares = downstreamShares(sheet, tree, result, new Set(options.nonLinearLoadKinds ?? ['electronics']));
+  const majority = options.nonLinearMajorityFraction ?? DEFAULT_NON_LINEAR_MAJORITY;
+  const shares = nonLinearShares(sheet, tree, new Map(result.loads.map((l) => [l.loadId, l.kw])), options.nonLinearLoadKinds ?? DEFAULT_NON_LINEAR_KINDS);
   const conductors: ConductorLoading[] = [];
   for (const r of result.runs) {
     const run = sheet.elements[r.runId];
     if (run?.kind !== 'run') continue;
-    const s = shares.get(r.runId);
-    conductors.push(...conductorLoadings(sheet, tree, run, r, { nonLinearFraction: s && s.all > 0 ? s.nonLinear / s.all : 0 }, majority));
+    conductors.push(...conductorLoadings(sheet, tree, run, r, { nonLinearFraction: shares.get(r.runId) ?? 0 }, majority));
   }
   const continuous = options.continuousLoadPercent ?? 80;
   const breakers = result.breakers.flatMap((b) => {

@@ -1,7 +1,7 @@
 // Voltage drop of each run and summed from the start of its voltage zone, against the 3 % and 5 % guidance.
 import type { Sheet } from '../../shared/sheet';
 import type { RunResult } from '../results/types';
-import { runsFromOrigin, type FeedTree } from './feed-tree';
+import { runsFromOrigin, type FeedTree } from '../solve/feed-tree';
 import type { VoltageDropEntry } from './types';
 
 /** Whether anything downstream of an element is a bus (a feeder) or only loads (a branch circuit). */

@@ -56,6 +56,10 @@ describe('conductor ampacity: NEC 310.16 with 310.15(B), 310.15(C)(1) and 310.15
     expect(a.rule!.adjustmentFactor).toBe(0.8); // source: NEC 310.15(C)(1), 4–6 conductors 80 % (recalled)
     expect(a.ampacityAmperes).toBeCloseTo(230 * Math.sqrt(35 / 45) * 0.8, 9);
     expect(a.rule!.text).toMatch(/310\.15\(E\)\(3\)/);
+    // the solve's own run results apply the same rule, so the drawing and the study agree
+    const solved = solveSheet(feeder(fourWire('4/0', 'copper', { ambientC: 40 }), { it: wyeLoad(30, 'electronics') }));
+    if (!solved.ok) throw new Error(solved.error.message);
+    expect(solved.result.runs[0].conductors.A!.ampacityAmperes).toBeCloseTo(a.ampacityAmperes!, 12);
     expect(a.percentOfAmpacity).toBeCloseTo((100 * a.amperes) / a.ampacityAmperes!, 9);
     // the equipment grounding conductor is not rated by ampacity
     expect(row(s, 'run', 'PE').status).toBe('not-rated');

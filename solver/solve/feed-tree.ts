@@ -1,7 +1,7 @@
 // Which element feeds which: a breadth-first walk from every source over the sheet's connections (a radial reading;
 // in a meshed sheet each element hangs from the first path found) over connections that carry a phase. Voltage zones
 // restart at each transformer.
-import type { Sheet } from '../../shared/sheet';
+import type { LoadKind, Sheet } from '../../shared/sheet';
 import { connectionProblem } from '../../shared/sheet';
 
 export interface FeedTree {
@@ -12,16 +12,23 @@ export interface FeedTree {
   order: string[];
 }
 
+const carriesPhase = (map: Record<string, unknown>) => 'A' in map || 'B' in map || 'C' in map;
+
 export function feedTree(sheet: Sheet): FeedTree {
   const neighbours = new Map<string, string[]>();
-  for (const id of Object.keys(sheet.elements)) neighbours.set(id, []);
   // Connections in a stable order, so that the tree does not depend on map iteration of concurrent edits.
-  for (const connection of Object.values(sheet.connections).sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0))) {
-    if (connectionProblem(sheet, connection)) continue;
+  const connections = Object.values(sheet.connections);
+  connections.sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+  const link = (a: string, b: string) => {
+    const list = neighbours.get(a);
+    if (list) list.push(b);
+    else neighbours.set(a, [b]);
+  };
+  for (const connection of connections) {
     // Power flows on the phases: a tie of neutrals or grounds alone (a neutral interconnection, an electrode) feeds nothing.
-    if (!Object.keys(connection.conductorMap).some((k) => k === 'A' || k === 'B' || k === 'C')) continue;
-    neighbours.get(connection.from.elementId)!.push(connection.to.elementId);
-    neighbours.get(connection.to.elementId)!.push(connection.from.elementId);
+    if (!carriesPhase(connection.conductorMap) || connectionProblem(sheet, connection)) continue;
+    link(connection.from.elementId, connection.to.elementId);
+    link(connection.to.elementId, connection.from.elementId);
   }
   const parent = new Map<string, string>();
   const children = new Map<string, string[]>();
@@ -34,15 +41,17 @@ export function feedTree(sheet: Sheet): FeedTree {
   }
   for (let head = 0; head < order.length; head++) {
     const id = order[head];
-    for (const next of neighbours.get(id) ?? []) {
-      if (seen.has(next)) continue;
-      seen.add(next);
-      parent.set(next, id);
-      const list = children.get(id);
-      if (list) list.push(next);
-      else children.set(id, [next]);
-      order.push(next);
+    const next = neighbours.get(id);
+    if (!next) continue;
+    let kids: string[] | undefined;
+    for (const n of next) {
+      if (seen.has(n)) continue;
+      seen.add(n);
+      parent.set(n, id);
+      (kids ??= []).push(n);
+      order.push(n);
     }
+    if (kids) children.set(id, kids);
   }
   return { parent, children, order };
 }
@@ -71,4 +80,32 @@ export function nearestUpstream(sheet: Sheet, tree: FeedTree, elementId: string,
     at = tree.parent.get(at);
   }
   return undefined;
+}
+
+/** Load kinds taken as non-linear for NEC 310.15(E)(3) unless a study says otherwise (our default). */
+export const DEFAULT_NON_LINEAR_KINDS: readonly LoadKind[] = ['electronics'];
+/** "The major portion of the load": more than half of the kW downstream. */
+export const DEFAULT_NON_LINEAR_MAJORITY = 0.5;
+
+/** Share of the kW downstream of each element that is non-linear (a post-order walk; 0 where nothing is downstream). */
+export function nonLinearShares(sheet: Sheet, tree: FeedTree, kwByLoad: Map<string, number>, kinds: readonly LoadKind[] = DEFAULT_NON_LINEAR_KINDS): Map<string, number> {
+  const nonLinear = new Set(kinds);
+  const totals = new Map<string, { all: number; nonLinear: number }>();
+  for (let k = tree.order.length - 1; k >= 0; k--) {
+    const id = tree.order[k];
+    const e = sheet.elements[id];
+    const own = e?.kind === 'load' ? Math.max(0, kwByLoad.get(id) ?? 0) : 0;
+    const t = { all: own, nonLinear: e?.kind === 'load' && nonLinear.has(e.loadKind) ? own : 0 };
+    for (const child of tree.children.get(id) ?? []) {
+      const c = totals.get(child);
+      if (c) {
+        t.all += c.all;
+        t.nonLinear += c.nonLinear;
+      }
+    }
+    totals.set(id, t);
+  }
+  const out = new Map<string, number>();
+  for (const [id, t] of totals) out.set(id, t.all > 0 ? t.nonLinear / t.all : 0);
+  return out;
 }
