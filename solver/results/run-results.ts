@@ -62,7 +62,7 @@ export function runResult(ctx: ResultContext, run: RunElement, nonLinearFraction
     }
     result.conductors[k.conductor] = entry;
   });
-  // Drop along the run of each phase's voltage to the neutral (line-to-line without one), percent of nominal.
+  // Drop along the run (in the direction of the supply) of each phase's voltage to the neutral (line-to-line without one), percent of nominal.
   const byId = new Map(layout.conductors.map((k) => [k.conductor, k]));
   const n = byId.get('N');
   const drops: number[] = [];
@@ -79,6 +79,13 @@ export function runResult(ctx: ResultContext, run: RunElement, nonLinearFraction
     const to = magnitude(minus(pinVolts(volts, kp.toPin), pinVolts(volts, kq.toPin)));
     drops.push((100 * (from - to)) / nominal);
   }
-  if (drops.length) result.voltageDropPercent = Math.max(...drops);
+  // Power flows into the run at its 'from' end unless the run is drawn against the supply: then the drop is to → from.
+  let pFrom = 0;
+  layout.conductors.forEach((k, i) => {
+    const v = pinVolts(volts, k.fromPin);
+    pFrom += v.re * currents[i].re + v.im * currents[i].im;
+  });
+  if (pFrom < 0) result.fedFrom = 'to';
+  if (drops.length) result.voltageDropPercent = pFrom < 0 ? Math.max(...drops.map((d) => -d)) : Math.max(...drops);
   return result;
 }

@@ -226,6 +226,28 @@ describe('voltage drop against the hand formulas', () => {
   });
 });
 
+describe('a run drawn against the supply', () => {
+  it('reads its drop in the direction of the supply', () => {
+    const build = (reversed: boolean) => {
+      const b = new SheetBuilder('reversed', {})
+        .source('src', { nominalVolts: 208 })
+        .bus('service', { role: 'service', neutralGroundBond: true })
+        .run('run', { lengthFt: 100, conductors: { A: { size: '10' }, N: { size: '10' } } })
+        .bus('panel')
+        .load('h', { connection: 'line-to-neutral', ratedVolts: 120, kw: 2, loadKind: 'heating' })
+        .connect('src', 'out', 'service', 'bars', ['A', 'B', 'C', 'N'])
+        .connect('panel', 'bars', 'h', 'supply', ['A', 'N']);
+      if (reversed) b.connect('service', 'bars', 'run', 'to', ['A', 'N']).connect('run', 'from', 'panel', 'bars', ['A', 'N']);
+      else b.connect('service', 'bars', 'run', 'from', ['A', 'N']).connect('run', 'to', 'panel', 'bars', ['A', 'N']);
+      return study(b.sheet()).voltageDrop[0];
+    };
+    const forward = build(false);
+    const backward = build(true);
+    expect(forward.dropPercent!).toBeGreaterThan(2); // 2 kW at 120 V through 200 ft of loop of 10 AWG Cu (Table 9 R 1.2, seen): about 2.8 %
+    expect(backward.dropPercent!).toBeCloseTo(forward.dropPercent!, 9);
+  });
+});
+
 describe('voltage drop on the demo sheets', () => {
   const load = (name: string) => {
     const read = readSheet(JSON.parse(readFileSync(join(__dirname, '..', '..', 'solver', 'fixtures', name), 'utf8')));
@@ -330,6 +352,22 @@ describe('neutral-to-ground bonds', () => {
 });
 
 describe('study options and failures', () => {
+  it('takes other load kinds as non-linear when asked (lighting here), which counts the neutral', () => {
+    const sheet = feeder(fourWire('1/0'), { lamps: wyeLoad(20, 'lighting') });
+    expect(row(study(sheet), 'run', 'A').rule!.currentCarrying).toBe(3); // NEC 310.15(E)(1)
+    expect(row(study(sheet, { nonLinearLoadKinds: ['lighting'] }), 'run', 'A').rule!.currentCarrying).toBe(4); // NEC 310.15(E)(3)
+  });
+
+  it('an ambient at the insulation rating leaves the conductor unrated with the reason; an empty sheet studies to empty lists', () => {
+    const s = study(feeder(fourWire('1/0', 'copper', { insulationTempC: 60, ambientC: 60 }), { h: wyeLoad(10, 'heating') }));
+    expect(row(s, 'run', 'A').status).toBe('not-rated');
+    expect(row(s, 'run', 'A').note).toMatch(/at or above the 60 °C insulation rating/);
+    const empty = study(new SheetBuilder('empty', {}).sheet());
+    expect(empty.conductors).toEqual([]);
+    expect(empty.voltageDrop).toEqual([]);
+    expect(empty.summary.bondsFlagged).toBe(0);
+  });
+
   it('studies a what-if, and fails with the solver’s error for an unknown one', () => {
     const run = { lengthFt: 50, conductors: { A: { size: '6' }, N: { size: '6' } } };
     const base = feeder(run, { h: { connection: 'line-to-neutral', ratedVolts: 120, kw: 3, loadKind: 'heating' } });
