@@ -300,15 +300,13 @@ export const loadSchema = z
     /** Unbalanced three-phase loads: kW per element (A, B, C; for delta A is A–B, B is B–C, C is C–A). Replaces kw. */
     phaseKw: z.partialRecord(phaseIdSchema, nonNegative('phaseKw')).optional(),
     phasePowerFactor: z.partialRecord(phaseIdSchema, finite().gt(0).max(1)).optional(),
-    /** Motors only: during a fault the motor feeds it as a source behind its subtransient reactance [false]. */
+    /** Motors only (ignored for other kinds, so a kind changed later loses nothing): during a fault the motor feeds it
+     *  as a source behind its subtransient reactance [false]. */
     contributesToFaults: z.boolean().optional(),
     /** Subtransient reactance X"d, per unit on the motor's own kVA [0.17, solver/faults/motor-contribution.ts]. */
     subtransientReactancePu: positive('subtransientReactancePu').max(1, 'subtransientReactancePu must be at most 1').optional(),
   })
   .superRefine((l, ctx) => {
-    if (l.contributesToFaults && l.loadKind !== 'motor') {
-      ctx.addIssue({ code: 'custom', path: ['contributesToFaults'], message: `only a motor contributes to faults (this load is ${l.loadKind})` });
-    }
     const fractions = [l.constantImpedanceFraction, l.constantCurrentFraction, l.constantPowerFraction];
     const given = fractions.filter((f) => f !== undefined) as number[];
     if (given.length > 0) {

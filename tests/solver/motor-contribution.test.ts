@@ -3,7 +3,6 @@ import { describe, expect, it } from 'vitest';
 import { SheetBuilder } from './helpers/sheet-builder';
 import { faultStudy, solveFault, type FaultSolveResult, type FaultSpec } from '../../solver';
 import type { Sheet } from '../../shared/sheet';
-import { validateSheet } from '../../shared/sheet';
 
 function fault(sheet: Sheet, spec: FaultSpec): FaultSolveResult {
   const r = solveFault(sheet, spec);
@@ -80,12 +79,11 @@ describe('motor contribution during faults', () => {
     if (on.ok) expect(on.study.assumptions.some((a) => /pump/.test(a))).toBe(true);
   });
 
-  it('only a motor may contribute, and the error says where', () => {
-    const json = new SheetBuilder('x', {})
-      .load('heater', { connection: 'line-to-neutral', loadKind: 'heating', kw: 2, ratedVolts: 120, contributesToFaults: true })
-      .json();
-    const v = validateSheet(json);
-    expect(v.ok).toBe(false);
-    if (!v.ok) expect(v.issues.some((i) => i.path === 'elements.heater.contributesToFaults' && /only a motor/.test(i.message))).toBe(true);
+  it('the flag is ignored on a load that is not a motor (a kind changed later keeps its data)', () => {
+    const sheet = (contributes: boolean) =>
+      plant({}).load('heater', { connection: 'three-phase-delta', loadKind: 'heating', kw: 85, ratedVolts: 480, contributesToFaults: contributes }).connect('mcc', 'bars', 'heater', 'supply', ['A', 'B', 'C']).sheet();
+    const spec: FaultSpec = { busId: 'mcc', faultType: 'three-phase' };
+    expect(fault(sheet(true), spec).fault.currents).toEqual(fault(sheet(false), spec).fault.currents);
+    expect(fault(sheet(true), spec).assumptions.some((a) => /heater/.test(a))).toBe(false);
   });
 });
