@@ -79,6 +79,9 @@ export function loadingStudy(sheet: Sheet, options: LoadingStudyOptions = {}): O
     if (!outcome.ok) return outcome;
     solved = outcome.result;
   }
+  if (solved.fault) {
+    return { ok: false, error: { code: 'not-supported', message: `a loading study needs a load-flow result; ${whatIfId ? `what-if ${whatIfId}` : 'the result given'} is a shunt fault`, elementIds: [solved.fault.busId] } };
+  }
   try {
     return { ok: true, study: loadingStudyOf(sheet, solved, rest) };
   } catch (error) {

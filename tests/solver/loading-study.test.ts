@@ -379,5 +379,9 @@ describe('study options and failures', () => {
     const bad = loadingStudy(withWhatIf, { whatIfId: 'nope' });
     expect(bad.ok).toBe(false);
     if (!bad.ok) expect(bad.error.code).toBe('unknown-what-if');
+    const faulted = { ...base, whatIfs: { f: { id: 'f', name: 'f', changes: { x: { kind: 'shunt-fault' as const, busId: 'panel', faultType: 'line-to-neutral' as const, to: 'PE' as const, faultOhms: 0, faultReactanceOhms: 0 } } } } };
+    const onFault = loadingStudy(faulted, { whatIfId: 'f' });
+    expect(onFault.ok).toBe(false);
+    if (!onFault.ok) expect(onFault.error.message).toMatch(/needs a load-flow result; what-if f is a shunt fault/);
   });
 });
