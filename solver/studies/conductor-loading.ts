@@ -60,12 +60,16 @@ export function conductorLoadings(
       row.note = 'an equipment grounding conductor is sized by NEC 250.122, not by ampacity';
       continue;
     }
-    if (run.impedanceFrom === 'iec-60228' || data.size === undefined) {
-      row.note = 'no NEC 310.16 size: IEC users get the same check from a table of their own in a later release';
-      continue;
-    }
     if (run.impedanceFrom === 'overhead') {
       row.note = 'an overhead conductor in free air is not rated by NEC 310.16';
+      continue;
+    }
+    if (run.impedanceFrom === 'iec-60228') {
+      row.note = 'an IEC 60228 size: IEC users get the same check from a table of their own in a later release';
+      continue;
+    }
+    if (data.size === undefined) {
+      row.note = 'no AWG or kcmil size on the sheet: no NEC 310.16 ampacity';
       continue;
     }
     try {
