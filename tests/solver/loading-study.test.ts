@@ -76,6 +76,20 @@ describe('conductor ampacity: NEC 310.16 with 310.15(B), 310.15(C)(1) and 310.15
     expect(a.rule!.text).toMatch(/310\.15\(E\)\(1\)/);
   });
 
+  it.each([
+    // source: NEC Table 310.15(B)(1), row 36–40 °C: 0.82 / 0.88 / 0.91 for 60 / 75 / 90 °C insulation (from memory);
+    // Table 310.16 1/0 AWG Cu 125 / 150 / 170 A (from memory)
+    [60, 0.82, 125],
+    [75, 0.88, 150],
+    [90, 0.91, 170],
+  ] as const)('1/0 Cu with %i °C insulation at 40 °C: factor %f', (insulationTempC, factor, table) => {
+    const s = study(feeder(fourWire('1/0', 'copper', { insulationTempC, ambientC: 40 }), { h: wyeLoad(10, 'heating') }));
+    const a = row(s, 'run', 'A');
+    expect(a.rule!.tableAmperes).toBe(table);
+    expect(Math.abs(a.rule!.ambientFactor - factor)).toBeLessThanOrEqual(0.005);
+    expect(a.ampacityAmperes).toBeCloseTo(table * a.rule!.ambientFactor, 9);
+  });
+
   it('3/0 Al 75 °C, two phases and the neutral of a 4-wire wye: the neutral counts; a given count of 7 takes 70 %', () => {
     const run = { lengthFt: 40, conductors: { A: { size: '3/0', material: 'aluminum' }, B: { size: '3/0', material: 'aluminum' }, N: { size: '3/0', material: 'aluminum' } } };
     const loads = { l1: { connection: 'line-to-neutral', ratedVolts: 120, kw: 5, loadKind: 'heating' }, l2: { connection: 'line-to-neutral', ratedVolts: 120, kw: 5, loadKind: 'heating', map: { B: 'A', N: 'N' } } };
