@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { SheetBuilder } from './helpers/sheet-builder';
 import { readSheet, type Sheet } from '../../shared/sheet';
 import { loadingStudy, solveSheet, type LoadingStudy, type ConductorLoading } from '../../solver';
+import { largestProtectionAmperes } from '../../solver/conductors';
 
 function study(sheet: Sheet, options = {}): LoadingStudy {
   const s = loadingStudy(sheet, options);
@@ -128,6 +129,24 @@ describe('conductor ampacity: NEC 310.16 with 310.15(B), 310.15(C)(1) and 310.15
     expect(a.smallConductor).toEqual({ limitAmperes: 20, breakerId: 'cb', breakerRatingAmperes: 30, exceeded: true }); // source: NEC 240.4(D) (recalled)
     expect(s.conductors[0].status).toBe('over'); // worst first
     expect(s.summary.conductorsOver).toBeGreaterThanOrEqual(1);
+  });
+
+  it('240.4(B): the breaker may be the next standard rating above the ampacity, up to 800 A', () => {
+    // source: NEC 240.4(B) and the 240.6(A) standard ratings (from memory): 230 A of 4/0 Cu may take a 250 A breaker
+    expect(largestProtectionAmperes(230)).toBe(250);
+    expect(largestProtectionAmperes(100)).toBe(100);
+    expect(largestProtectionAmperes(132.3)).toBe(150);
+    expect(largestProtectionAmperes(800)).toBe(800);
+    expect(largestProtectionAmperes(810)).toBe(810); // above 800 A no rounding up (240.4(C))
+    const at = (rating: number) => row(study(feeder(fourWire('4/0'), { h: wyeLoad(10, 'heating') }, { breaker: { ratingAmperes: rating } })), 'run', 'A');
+    expect(at(250).protection).toEqual({ breakerId: 'cb', breakerRatingAmperes: 250, largestAllowedAmperes: 250, exceeded: false });
+    const over = at(300);
+    expect(over.protection!.exceeded).toBe(true);
+    expect(over.note).toMatch(/240\.4\(B\)/);
+    const s = study(feeder(fourWire('4/0'), { h: wyeLoad(10, 'heating') }, { breaker: { ratingAmperes: 300 } }));
+    expect(s.summary.runsUnprotected).toBe(1);
+    // the neutral and the PE are not checked against the breaker
+    expect(row(s, 'run', 'N').protection).toBeUndefined();
   });
 
   it('IEC runs are not rated yet and say so', () => {
