@@ -1,0 +1,22 @@
+// The drawing as PNG: the export's SVG rasterised by resvg with the shipped fonts (no system fonts, so every
+// machine draws the same), at a scale that keeps the longer side within a limit.
+import { Resvg } from '@resvg/resvg-js';
+import { FONT_FILES } from './fonts';
+import { SVG_FONTS } from './drawing-svg';
+
+export const PNG_SCALE = 2;
+export const PNG_MAX_SIDE = 6000;
+
+/** The scale that the PNG of a drawing of this size is rendered at. */
+export function pngScale(width: number, height: number): number {
+  return Math.min(PNG_SCALE, PNG_MAX_SIDE / Math.max(width, height, 1));
+}
+
+export function drawingPng(svg: string, width: number, height: number): Buffer {
+  const scale = pngScale(width, height);
+  const resvg = new Resvg(svg, {
+    fitTo: { mode: 'width', value: Math.round(width * scale) },
+    font: { loadSystemFonts: false, fontFiles: Object.values(FONT_FILES), defaultFontFamily: SVG_FONTS.text },
+  });
+  return resvg.render().asPng();
+}
