@@ -34,7 +34,7 @@ import { createDocumentStore } from './sync/document-store';
 import { RoomRegistry } from './sync/room-registry';
 import { attachSyncServer } from './sync/sync-server';
 import { migrateOnLoad } from './sync/migrate-on-load';
-import { seedDemoDocuments } from './demo-documents';
+import { seedDemoDocuments, seedDemoRevisions } from './demo-documents';
 import { revisionsRouter, type RevisionAccess } from './api/revisions/router';
 import { exportsRouter } from './api/exports/router';
 import { WorkerPool } from './workers/worker-pool';
@@ -171,7 +171,10 @@ export async function startServer(
 
   const http = createHttpServer(app);
   const sync = attachSyncServer(http, { db, auth, rooms, log });
-  if (demoSheets.length > 0) await seedDemoDocuments(rooms, demoSheets, null);
+  if (demoSheets.length > 0) {
+    await seedDemoDocuments(rooms, demoSheets, null);
+    await seedDemoRevisions({ db, rooms, workers }, demoSheets);
+  }
   await new Promise<void>((resolve, reject) => {
     http.once('error', reject);
     http.listen(config.port, () => resolve());

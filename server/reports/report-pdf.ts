@@ -32,7 +32,7 @@ const dateOf = (iso: string) => new Date(iso).toISOString().slice(0, 16).replace
 
 class Report {
   readonly doc: PDFKit.PDFDocument;
-  private y = M;
+  y = M;
 
   constructor(private readonly footer: string) {
     this.doc = new PDFDocument({ size: 'LETTER', margins: { top: M, bottom: M, left: M, right: M }, bufferPages: true, autoFirstPage: false, info: { Title: footer, Creator: 'Phasewright' } });
@@ -67,11 +67,12 @@ class Report {
     }
   }
 
-  para(text: string, options: { size?: number; color?: string; font?: string } = {}) {
+  /** A paragraph; `keep` reserves room for what must follow it on the same page (a table's header and first rows). */
+  para(text: string, options: { size?: number; color?: string; font?: string; keep?: number } = {}) {
     const size = options.size ?? 9.5;
     this.doc.font(options.font ?? 'text').fontSize(size);
     const h = this.doc.heightOfString(text, { width: this.width });
-    this.room(h);
+    this.room(h + (options.keep ?? 0));
     this.doc.fillColor(options.color ?? INK).text(text, M, this.y, { width: this.width });
     this.y = this.doc.y + 4;
   }
@@ -203,11 +204,14 @@ function loadRows(r: SolveResult) {
       v1(e.percentOfRating),
       e.standing?.standing ?? '—',
       v1(e.amperes),
-      `${e.model.replace(/-/g, ' ')}${e.switchedToImpedance ? ' (switched)' : ''}`,
+      `${MODEL_SHORT[e.model] ?? e.model}${e.switchedToImpedance ? ', switched' : ''}`,
       e.constantImpedanceVolts !== undefined ? v1(e.constantImpedanceVolts) : '—',
     ]),
   );
 }
+/** Short names for the load models in narrow columns; the data section spells them out. */
+const MODEL_SHORT: Record<string, string> = { 'constant-impedance': 'const. Z', 'constant-current': 'const. I', 'constant-power': 'const. P', mix: 'mix' };
+
 const LOAD_COLUMNS: Column[] = [
   { title: 'Load', width: 28 },
   { title: 'Element', width: 9 },
@@ -215,8 +219,8 @@ const LOAD_COLUMNS: Column[] = [
   { title: '% rating', width: 9, align: 'right' },
   { title: 'Standing', width: 11 },
   { title: 'A', width: 8, align: 'right' },
-  { title: 'Model', width: 16 },
-  { title: 'V if all Z', width: 9, align: 'right' },
+  { title: 'Model', width: 15 },
+  { title: 'V if all Z', width: 10, align: 'right' },
 ];
 
 function runRows(r: SolveResult) {
@@ -248,7 +252,7 @@ export async function renderReportPdf(input: ReportInput): Promise<Uint8Array> {
   // Title block.
   rep.doc.font('bold').fontSize(20).fillColor(INK).text('Study report', M, M);
   rep.doc.font('text').fontSize(10).fillColor(MUTED).text('Phasewright', M, rep.doc.y);
-  (rep as unknown as { y: number }).y = rep.doc.y + 12;
+  rep.y = rep.doc.y + 12;
   rep.block([
     ['Project', input.projectName],
     ['Sheet', input.sheetName],
@@ -321,7 +325,7 @@ export async function renderReportPdf(input: ReportInput): Promise<Uint8Array> {
         .sort((a, b) => Math.abs(Number(b[3]) - 100) - Math.abs(Number(a[3]) - 100))
         .slice(0, 8);
       if (worst.length > 0) {
-        rep.para('Loads farthest from their rating:', { size: 8.5, color: MUTED });
+        rep.para('Loads farthest from their rating:', { size: 8.5, color: MUTED, keep: 60 });
         rep.table(LOAD_COLUMNS, worst);
       }
     }
@@ -337,13 +341,14 @@ export async function renderReportPdf(input: ReportInput): Promise<Uint8Array> {
     rep.heading('Fault currents at each bus', 2);
     rep.table(
       [
-        { title: 'Bus', width: 30 },
-        { title: 'Fault', width: 24 },
-        { title: 'Sym. kA', width: 12, align: 'right' },
-        { title: 'Peak kA', width: 12, align: 'right' },
-        { title: 'X/R', width: 10, align: 'right' },
+        { title: 'Bus', width: 22 },
+        { title: 'Fault', width: 20 },
+        { title: 'Sym. kA', width: 9, align: 'right' },
+        { title: 'Peak kA', width: 9, align: 'right' },
+        { title: 'X/R', width: 8, align: 'right' },
+        { title: 'Note', width: 32 },
       ],
-      fs.study.cases.map((c) => [busName(c.busId), c.faultType, c.problem ? c.problem : v1(c.symmetricalKa, 2), v1(c.peakKa, 2), v1(c.xOverR, 2)]),
+      fs.study.cases.map((c) => [busName(c.busId), c.faultType, v1(c.symmetricalKa, 2), v1(c.peakKa, 2), v1(c.xOverR, 2), c.problem ?? '']),
     );
     rep.heading('Interrupting ratings', 2);
     if (fs.study.duties.length === 0) rep.para('No breaker or bus has an interrupting rating to check.');
@@ -437,6 +442,7 @@ export async function renderReportPdf(input: ReportInput): Promise<Uint8Array> {
     rep.heading('Assumptions of the solve', 2);
     rep.bullets([...assumptions]);
   }
+  rep.bullets(['Load models in the tables: const. Z = constant impedance, const. I = constant current, const. P = constant power, mix = a share of each; "switched" = turned to constant impedance by the low-voltage switch. "V if all Z" = the voltage with every load at constant impedance, shown under an open or degraded neutral.']);
   rep.heading('Cautions');
   rep.para(CAUTION);
   return rep.finish();
