@@ -123,7 +123,7 @@ export function revisionsRouter(deps: RevisionDeps): Router {
       const to = await ownerEmails(db, a.projectId, a.user.id);
       if (to.length > 0) {
         const names = await sheetNames(db, a.sheetId);
-        const url = `${deps.config.publicUrl}/sheets/${a.sheetId}/revisions?number=${row.number}`;
+        const url = `${deps.config.publicUrl}/revisions/${a.sheetId}?number=${row.number}`;
         await deps.mailer.send({ to, ...reviewMail({ reviewer: a.user.name, verdict: body.verdict, sheetName: names.sheetName, number: row.number, comment: body.comment, url, viaLink: a.viaLink }) });
       }
     } catch (err) {
