@@ -9,6 +9,8 @@ export interface StudyTable {
   rows: (string | number | null)[][];
   /** Lines printed under the table (method, limits, what was skipped). */
   notes?: string[];
+  /** A plot drawn above the table (the voltage profile), as standalone SVG in drawing units. */
+  figure?: { svg: string; width: number; height: number };
 }
 
 export interface ExtraStudy {

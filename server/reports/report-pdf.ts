@@ -9,7 +9,7 @@ import type { SolveResult } from '../../solver';
 import { drawingSvg, SVG_FONTS } from '../exports/drawing-svg';
 import { FONT_FILES } from '../exports/fonts';
 import { caseSummary } from '../revisions/summaries';
-import { PLANNED_STUDIES } from './extra-studies';
+import { PLANNED_STUDIES, type StudyTable } from './extra-studies';
 import { panelSchedules } from './panel-schedules';
 import type { ReportInput } from './report-input';
 
@@ -29,6 +29,9 @@ interface Column {
 
 const v1 = (x: number | null | undefined, digits = 1) => (typeof x === 'number' && Number.isFinite(x) ? x.toFixed(digits) : '—');
 const dateOf = (iso: string) => new Date(iso).toISOString().slice(0, 16).replace('T', ' ') + ' UTC';
+
+/** svg-to-pdfkit names a font family; these are the fonts registered from assets/fonts. */
+const pickFont = (family: string) => (family.includes('Mono') ? 'mono' : family.includes('SemiBold') ? 'bold' : 'text');
 
 class Report {
   readonly doc: PDFKit.PDFDocument;
@@ -134,6 +137,14 @@ class Report {
     this.y += 14;
   }
 
+  /** An SVG figure within the text column, scaled to the column's width (at most its own size). */
+  figure(svg: string, width: number, height: number) {
+    const scale = Math.min(1, this.width / width);
+    this.room(height * scale + 8);
+    SVGtoPDF(this.doc, svg, M, this.y, { width: width * scale, height: height * scale, fontCallback: pickFont });
+    this.y += height * scale + 8;
+  }
+
   drawing(svg: string, width: number, height: number) {
     this.page('landscape');
     const w = this.doc.page.width - 2 * M;
@@ -144,7 +155,7 @@ class Report {
       width: width * scale,
       height: height * scale,
       preserveAspectRatio: 'xMidYMid meet',
-      fontCallback: (family: string) => (family.includes('Mono') ? 'mono' : family.includes('SemiBold') ? 'bold' : 'text'),
+      fontCallback: pickFont,
     });
     this.page();
   }
@@ -241,6 +252,31 @@ const RUN_COLUMNS: Column[] = [
   { title: 'Drop %', width: 10, align: 'right' },
 ];
 
+function studyTable(rep: Report, t: StudyTable) {
+  rep.heading(t.title, 2);
+  if (t.figure) rep.figure(t.figure.svg, t.figure.width, t.figure.height);
+  if (t.columns.length > 0) rep.table(t.columns.map((c) => ({ title: c, width: 100 / t.columns.length })), t.rows);
+  if (t.notes) rep.bullets(t.notes);
+}
+
+/** The base case and every what-if in one line each: where the loads stand at the extremes. */
+function caseTable(rep: Report, results: ReportInput['results']) {
+  const fmtLoad = (l?: { name: string; percentOfRating: number; volts: number }) => (l ? `${v1(l.percentOfRating)} % (${v1(l.volts)} V) ${l.name}` : '—');
+  rep.table(
+    [
+      { title: 'Case', width: 30 },
+      { title: 'Highest load', width: 26 },
+      { title: 'Lowest load', width: 26 },
+      { title: 'Source kW / fault kA', width: 14, align: 'right' },
+    ],
+    [results.base, ...results.whatIfs].map((c) => {
+      const s = caseSummary(c);
+      if (!s.ok) return [s.name, `not solved: ${s.error}`, '', ''];
+      return [s.name, fmtLoad(s.highestLoad), fmtLoad(s.lowestLoad), s.faultKa !== undefined ? `${v1(s.faultKa, 2)} kA` : v1(s.sourceKw, 2)];
+    }),
+  );
+}
+
 export async function renderReportPdf(input: ReportInput): Promise<Uint8Array> {
   const { revision, results } = input;
   const footer = `${input.projectName} · ${input.sheetName} · revision ${revision.number} · ${revision.inputHash.slice(0, 12)}`;
@@ -267,6 +303,9 @@ export async function renderReportPdf(input: ReportInput): Promise<Uint8Array> {
   rep.heading('Cautions');
   rep.para(CAUTION);
   rep.para('Local codes, the utility’s requirements and licensed practice govern; where they differ from anything in this report, they apply.', { color: MUTED, size: 9 });
+  rep.heading('Summary of the cases');
+  rep.para('Load voltages as a percent of each load’s rating, at the extremes, for the base case and each what-if.', { color: MUTED, size: 9 });
+  caseTable(rep, results);
   if (results.invalid) {
     rep.heading('The sheet could not be read');
     rep.bullets(results.invalid.issues.map((i) => `${i.path || '(document)'}: ${i.message}`));
@@ -298,20 +337,7 @@ export async function renderReportPdf(input: ReportInput): Promise<Uint8Array> {
   rep.heading('What-ifs');
   if (results.whatIfs.length === 0) rep.para('This sheet has no what-ifs.');
   else {
-    rep.table(
-      [
-        { title: 'Case', width: 30 },
-        { title: 'Highest load', width: 26 },
-        { title: 'Lowest load', width: 26 },
-        { title: 'Source kW / fault kA', width: 14, align: 'right' },
-      ],
-      [results.base, ...results.whatIfs].map((c) => {
-        const s = caseSummary(c);
-        if (!s.ok) return [s.name, `not solved: ${s.error}`, '', ''];
-        const fmtLoad = (l?: { name: string; percentOfRating: number; volts: number }) => (l ? `${v1(l.percentOfRating)} % (${v1(l.volts)} V) ${l.name}` : '—');
-        return [s.name, fmtLoad(s.highestLoad), fmtLoad(s.lowestLoad), s.faultKa !== undefined ? `${v1(s.faultKa, 2)} kA` : v1(s.sourceKw, 2)];
-      }),
-    );
+    rep.para('Each what-if is summarised on the first page; here are its bus voltages and the loads farthest from their rating.', { color: MUTED, size: 9 });
     for (const w of results.whatIfs) {
       rep.heading(`What-if: ${w.name}`, 2);
       if (!w.ok || !w.result) {
@@ -386,16 +412,12 @@ export async function renderReportPdf(input: ReportInput): Promise<Uint8Array> {
     if (!got) rep.para('Not run in this build of Phasewright.', { color: MUTED });
     else if (!got.ok) rep.para(`Could not be run: ${got.error}`);
     else
-      for (const t of got.tables) {
-        rep.heading(t.title, 2);
-        const share = 100 / Math.max(1, t.columns.length);
-        rep.table(t.columns.map((c) => ({ title: c, width: share })), t.rows);
-        if (t.notes) rep.bullets(t.notes);
-      }
+      for (const t of got.tables) studyTable(rep, t);
   }
   for (const extra of results.extra.filter((e) => !PLANNED_STUDIES.some((p) => p.id === e.id))) {
     rep.heading(extra.title);
-    for (const t of extra.tables) rep.table(t.columns.map((c) => ({ title: c, width: 100 / t.columns.length })), t.rows);
+    if (!extra.ok) rep.para(`Could not be run: ${extra.error}`);
+    for (const t of extra.tables) studyTable(rep, t);
   }
 
   // Panel schedules.

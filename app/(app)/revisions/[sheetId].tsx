@@ -69,7 +69,7 @@ export default function RevisionsScreen() {
 
   const listPane = (
     <ScrollView contentContainerStyle={styles.pane}>
-      <Button label="Back to the sheet" icon="arrow-left" variant="quiet" compact onPress={() => router.push(`/sheets/${sheetId}`)} testID="revisions-back" />
+      <Button label="Back to the sheet" icon="arrow-left" variant="quiet" compact style={styles.start} onPress={() => router.push(`/sheets/${sheetId}`)} testID="revisions-back" />
       <Text variant="heading">{title}</Text>
       <RevisionList
         revisions={list}
@@ -84,7 +84,7 @@ export default function RevisionsScreen() {
   );
   const detailPane = selected ? (
     <ScrollView contentContainerStyle={styles.pane}>
-      {!isWide ? <Button label="All revisions" icon="arrow-left" variant="quiet" compact onPress={() => setChosen(null)} testID="revisions-all" /> : null}
+      {!isWide ? <Button label="All revisions" icon="arrow-left" variant="quiet" compact style={styles.start} onPress={() => setChosen(null)} testID="revisions-all" /> : null}
       <RevisionDetail
         revision={selected}
         onDownload={(file) => void Linking.openURL(getApiClient().revisionExportUrl(sheetId, selected.number, file))}
@@ -127,4 +127,5 @@ export default function RevisionsScreen() {
 const styles = StyleSheet.create({
   centre: { flex: 1, justifyContent: 'center' },
   pane: { padding: space.lg, gap: space.md, maxWidth: 760 },
+  start: { alignSelf: 'flex-start' },
 });
