@@ -9,6 +9,7 @@ import { SOLVER_VERSION } from '../../solver';
 import { canonicalJson } from '../../server/revisions/input-hash';
 import { syncFixture, type SyncFixture } from '../support/sync-fixture';
 import { TestClient } from '../support/http-client';
+import { connectSheet, eventually } from '../support/sync-client';
 
 let f: SyncFixture;
 let token: string;
@@ -66,6 +67,23 @@ describe('who may do what', () => {
     expect((await f.outsider.get(`${base()}/1`)).status).toBe(404);
     expect((await new TestClient(f.server.url).get(base())).status).toBe(401);
     expect((await guest.get(base())).status).toBe(403);
+  });
+
+  it('exports: members and link holders download, outsiders get 404 and no session 401', async () => {
+    const nobody = new TestClient(f.server.url);
+    for (const [who, c, url, status] of [
+      ['viewer, live drawing', f.viewer, `/api/sheets/${f.sheetId}/export/drawing.svg`, 200],
+      ['viewer, revision CSV', f.viewer, `${base()}/1/export/results.csv`, 200],
+      ['no session through the link, revision CSV', nobody, `${viaLink()}/1/export/results.csv`, 200],
+      ['guest through the link, revision drawing', guest, `${viaLink()}/1/export/drawing.svg`, 200],
+      ['outsider, live drawing', f.outsider, `/api/sheets/${f.sheetId}/export/drawing.svg`, 404],
+      ['outsider, revision CSV', f.outsider, `${base()}/1/export/results.csv`, 404],
+      ['no session, live drawing', nobody, `/api/sheets/${f.sheetId}/export/drawing.svg`, 401],
+      ['guest on the member route', guest, `${base()}/1/export/results.csv`, 403],
+    ] as const) {
+      const r = await c.get(url);
+      expect({ who, status: r.status }).toEqual({ who, status });
+    }
   });
 
   it('only an owner restores, and never through a link', async () => {
@@ -149,6 +167,11 @@ describe('a revision is frozen', () => {
   });
 
   it('an owner restores it as a new edit in the room', async () => {
+    // Someone on the sheet sees the restore arrive as an edit.
+    const peer = connectSheet(f.editor, f.sheetId);
+    await peer.synced();
+    const elements = peer.doc.getMap('elements');
+    expect(elements.has('spare')).toBe(true);
     const r = await f.owner.post(`${base()}/1/restore`, {});
     expect(r.status, JSON.stringify(r.body)).toBe(200);
     expect(r.body.restoredFrom).toBe(1);
@@ -156,6 +179,8 @@ describe('a revision is frozen', () => {
     const r1 = (await f.owner.get(`${base()}/1`)).body.revision;
     expect(canonicalJson(live)).toBe(canonicalJson(r1.document));
     expect(live.elements.spare).toBeUndefined();
+    await eventually(() => !elements.has('spare'), 'the restore to reach the connected editor');
+    peer.destroy();
     const cmp = (await f.owner.get(`${base()}/1/compare`)).body.comparison;
     expect(cmp).toMatchObject({ identical: true, elements: { added: [], removed: [], changed: [] }, voltages: [] });
     // The restore is an edit, not a rewrite of history: revision 3 still holds the changed sheet.
