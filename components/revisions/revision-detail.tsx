@@ -1,7 +1,7 @@
 // One revision: who issued it and when, the solver's version and the input hash, its cases in a few figures, the
 // reviews, a review form, downloads, the comparison with the live sheet, and restore for owners.
 import { useState, type ReactNode } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { Image, StyleSheet, View } from 'react-native';
 import type { ReviewVerdict, RevisionComparison as Comparison, RevisionSummary } from '@/shared/revisions';
 import { space } from '../theme/tokens';
 import { Button } from '../ui/button';
@@ -25,6 +25,8 @@ export const DOWNLOADS = [
 export interface RevisionDetailProps {
   revision: RevisionSummary;
   onDownload: (file: string) => void;
+  /** The drawing as issued (the revision's SVG export), shown read-only. */
+  drawingUrl: string;
   comparison: Comparison | null;
   comparing: boolean;
   compareError: string | null;
@@ -78,6 +80,12 @@ export function RevisionDetail(p: RevisionDetailProps) {
           </Text>
         </Fact>
       </Card>
+
+      <Section title="Drawing as issued">
+        <Card style={styles.drawing}>
+          <Image source={{ uri: p.drawingUrl }} style={styles.drawingImage} resizeMode="contain" accessibilityLabel={`The drawing of revision ${r.number}`} testID="revision-drawing" />
+        </Card>
+      </Section>
 
       <Section title="Cases">
         <Card style={styles.card}>
@@ -171,6 +179,8 @@ const styles = StyleSheet.create({
   factLabel: { flexBasis: 150 },
   factValue: { flexGrow: 1, flexBasis: 200, minWidth: 0 },
   hash: { fontSize: 12 },
+  drawing: { padding: space.sm },
+  drawingImage: { width: '100%', height: 360 },
   case: { gap: 2 },
   buttons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
 });

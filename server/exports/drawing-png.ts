@@ -2,7 +2,6 @@
 // machine draws the same), at a scale that keeps the longer side within a limit.
 import { Resvg } from '@resvg/resvg-js';
 import { FONT_FILES } from './fonts';
-import { SVG_FONTS } from './drawing-svg';
 
 export const PNG_SCALE = 2;
 export const PNG_MAX_SIDE = 6000;
@@ -16,7 +15,7 @@ export function drawingPng(svg: string, width: number, height: number): Buffer {
   const scale = pngScale(width, height);
   const resvg = new Resvg(svg, {
     fitTo: { mode: 'width', value: Math.round(width * scale) },
-    font: { loadSystemFonts: false, fontFiles: Object.values(FONT_FILES), defaultFontFamily: SVG_FONTS.text },
+    font: { loadSystemFonts: false, fontFiles: Object.values(FONT_FILES), defaultFontFamily: 'Inter', sansSerifFamily: 'Inter', monospaceFamily: 'JetBrains Mono' },
   });
   return resvg.render().asPng();
 }

@@ -26,8 +26,11 @@ import { drawnResults, type DrawnResults } from '../../editor/results/value-tags
 import type { Plain } from '../../editor/document/y-values';
 import type { SolveResult } from '../../solver';
 
-/** Font families named in the SVG; the PNG and PDF renderers map them to the font files in assets/fonts. */
-export const SVG_FONTS = { text: 'Inter', textBold: 'Inter SemiBold', mono: 'JetBrains Mono' } as const;
+/**
+ * Font families named in the SVG; the PNG and PDF renderers map them to the font files in assets/fonts, and a
+ * browser showing the SVG on its own falls back to its generic families.
+ */
+export const SVG_FONTS = { text: 'Inter, sans-serif', textBold: "'Inter SemiBold', Inter, sans-serif", mono: "'JetBrains Mono', monospace" } as const;
 
 export interface DrawingSvg {
   svg: string;

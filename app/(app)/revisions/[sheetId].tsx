@@ -88,6 +88,7 @@ export default function RevisionsScreen() {
       <RevisionDetail
         revision={selected}
         onDownload={(file) => void Linking.openURL(getApiClient().revisionExportUrl(sheetId, selected.number, file))}
+        drawingUrl={getApiClient().revisionExportUrl(sheetId, selected.number, 'drawing.svg')}
         comparison={compareAsked === selected.number ? (comparison.data ?? null) : null}
         comparing={comparison.isFetching}
         compareError={comparison.error ? errorMessage(comparison.error) : null}
