@@ -13,7 +13,6 @@ import { PLANNED_STUDIES, type StudyTable } from './extra-studies';
 import { panelSchedules } from './panel-schedules';
 import type { ReportInput } from './report-input';
 
-const PAGE = { width: 612, height: 792 }; // US Letter, points
 const M = 50;
 const INK = '#1E2830';
 const MUTED = '#5B666E';
@@ -37,8 +36,11 @@ class Report {
   readonly doc: PDFKit.PDFDocument;
   y = M;
 
-  constructor(private readonly footer: string) {
-    this.doc = new PDFDocument({ size: 'LETTER', margins: { top: M, bottom: M, left: M, right: M }, bufferPages: true, autoFirstPage: false, info: { Title: footer, Creator: 'Phasewright' } });
+  constructor(
+    private readonly footer: string,
+    private readonly paper: 'LETTER' | 'A4',
+  ) {
+    this.doc = new PDFDocument({ size: paper, margins: { top: M, bottom: M, left: M, right: M }, bufferPages: true, autoFirstPage: false, info: { Title: footer, Creator: 'Phasewright' } });
     this.doc.registerFont('text', FONT_FILES.text);
     this.doc.registerFont('bold', FONT_FILES.textBold);
     this.doc.registerFont('mono', FONT_FILES.mono);
@@ -50,7 +52,7 @@ class Report {
   }
 
   page(layout: 'portrait' | 'landscape' = 'portrait') {
-    this.doc.addPage({ size: 'LETTER', layout, margins: { top: M, bottom: M, left: M, right: M } });
+    this.doc.addPage({ size: this.paper, layout, margins: { top: M, bottom: M, left: M, right: M } });
     this.y = M;
   }
 
@@ -280,8 +282,9 @@ function caseTable(rep: Report, results: ReportInput['results']) {
 export async function renderReportPdf(input: ReportInput): Promise<Uint8Array> {
   const { revision, results } = input;
   const footer = `${input.projectName} · ${input.sheetName} · revision ${revision.number} · ${revision.inputHash.slice(0, 12)}`;
-  const rep = new Report(footer);
   const read = readSheet(input.document);
+  // Paper follows the sheet's practice: A4 where the sheet works to IEC 60038, US Letter otherwise.
+  const rep = new Report(footer, read.ok && read.sheet.settings.voltageStandard === 'iec-60038' ? 'A4' : 'LETTER');
   const sheet: Sheet | null = read.ok ? read.sheet : null;
   const base = results.base.ok ? (results.base.result ?? null) : null;
 

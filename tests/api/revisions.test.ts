@@ -164,6 +164,12 @@ describe('a revision is frozen', () => {
     const r3 = await f.editor.post(base(), { note: 'After the load change' });
     expect(r3.body.revision.number).toBe(3);
     expect(r3.body.revision.inputHash).not.toBe(before.inputHash);
+    // Two issued at once get the next two numbers, and the same sheet gives the same hash.
+    const both = await Promise.all([f.editor.post(base(), { note: 'twin a' }), f.owner.post(base(), { note: 'twin b' })]);
+    expect(both.map((b) => b.status)).toEqual([201, 201]);
+    expect(both.map((b) => b.body.revision.number).sort()).toEqual([4, 5]);
+    expect(both[0].body.revision.inputHash).toBe(r3.body.revision.inputHash);
+    expect(both[1].body.revision.inputHash).toBe(r3.body.revision.inputHash);
   });
 
   it('an owner restores it as a new edit in the room', async () => {
@@ -185,6 +191,7 @@ describe('a revision is frozen', () => {
     expect(cmp).toMatchObject({ identical: true, elements: { added: [], removed: [], changed: [] }, voltages: [] });
     // The restore is an edit, not a rewrite of history: revision 3 still holds the changed sheet.
     expect((await f.owner.get(`${base()}/3`)).body.revision.document.elements.spare).toMatchObject({ name: 'Spare rod' });
+    expect((await f.owner.get(base())).body.revisions.map((r: any) => r.number)).toEqual([5, 4, 3, 2, 1]);
   });
 });
 
