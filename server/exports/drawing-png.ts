@@ -4,7 +4,8 @@ import { Resvg } from '@resvg/resvg-js';
 import { FONT_FILES } from './fonts';
 
 export const PNG_SCALE = 2;
-export const PNG_MAX_SIDE = 6000;
+// 4096 px on the longer side keeps a raster within about 64 MB, whatever the drawing's size.
+export const PNG_MAX_SIDE = 4096;
 
 /** The scale that the PNG of a drawing of this size is rendered at. */
 export function pngScale(width: number, height: number): number {
