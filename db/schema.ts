@@ -323,8 +323,10 @@ export const revision = pgTable(
     // SHA-256 (hex) of the canonical JSON of the document: the solver's input.
     inputHash: text('input_hash').notNull(),
     solverVersion: text('solver_version').notNull(),
-    // The base case and each what-if as the solver returned them (see server/revisions/study.ts).
+    // The base case and each what-if as the solver returned them (see server/revisions/study.ts), and each case in
+    // a few figures for lists (so listing revisions never reads the full results).
     results: jsonb('results').notNull(),
+    cases: jsonb('cases').notNull().default([]),
     issuedBy: text('issued_by').references(() => user.id, { onDelete: 'set null' }),
     issuedByName: text('issued_by_name').notNull().default(''),
     issuedAt: timestamp('issued_at', { withTimezone: true }).notNull().defaultNow(),

@@ -9,6 +9,7 @@ CREATE TABLE "revision" (
 	"input_hash" text NOT NULL,
 	"solver_version" text NOT NULL,
 	"results" jsonb NOT NULL,
+	"cases" jsonb DEFAULT '[]'::jsonb NOT NULL,
 	"issued_by" text,
 	"issued_by_name" text DEFAULT '' NOT NULL,
 	"issued_at" timestamp with time zone DEFAULT now() NOT NULL

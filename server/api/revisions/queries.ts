@@ -38,6 +38,7 @@ export async function insertRevision(db: Database, r: NewRevision): Promise<Revi
             inputHash: r.inputHash,
             solverVersion: r.solverVersion,
             results: r.results,
+            cases: casesOf(r.results),
             issuedBy: r.issuedBy.id,
             issuedByName: r.issuedBy.name,
           })
@@ -66,7 +67,7 @@ const listColumns = {
   issuedAt: revision.issuedAt,
   issuedBy: revision.issuedBy,
   issuedByName: revision.issuedByName,
-  results: revision.results,
+  cases: revision.cases,
 };
 
 type ListRow = { [K in keyof typeof listColumns]: RevisionRow[K] };
@@ -106,7 +107,7 @@ function toSummary(row: ListRow, reviews: ReviewSummary[]): RevisionSummary {
     issuedBy: { id: row.issuedBy, name: row.issuedByName },
     status,
     reviews,
-    cases: casesOf(row.results as StudyResults),
+    cases: row.cases as CaseSummary[],
   };
 }
 
