@@ -8,6 +8,7 @@ import {
   doublePrecision,
   index,
   integer,
+  jsonb,
   pgEnum,
   pgTable,
   primaryKey,
@@ -304,3 +305,51 @@ export const userPreference = pgTable('user_preference', {
   pinEmails: boolean('pin_emails').notNull().default(true),
   updatedAt: updatedAt(),
 });
+
+// Revisions: a sheet's document frozen when issued, numbered per sheet, with what the solver made of it then.
+// Rows are written once and never updated: a later edit of the sheet cannot change an issued revision.
+export const revision = pgTable(
+  'revision',
+  {
+    id: uuid('id').primaryKey().default(sql`gen_random_uuid()`),
+    sheetId: uuid('sheet_id')
+      .notNull()
+      .references(() => sheet.id, { onDelete: 'cascade' }),
+    number: integer('number').notNull(),
+    note: text('note').notNull().default(''),
+    // The room's document as a Yjs state, and its JSON view (the sheet format) at the moment of issue.
+    state: bytea('state').notNull(),
+    document: jsonb('document').notNull(),
+    // SHA-256 (hex) of the canonical JSON of the document: the solver's input.
+    inputHash: text('input_hash').notNull(),
+    solverVersion: text('solver_version').notNull(),
+    // The base case and each what-if as the solver returned them (see server/revisions/study.ts), and each case in
+    // a few figures for lists (so listing revisions never reads the full results).
+    results: jsonb('results').notNull(),
+    cases: jsonb('cases').notNull().default([]),
+    issuedBy: text('issued_by').references(() => user.id, { onDelete: 'set null' }),
+    issuedByName: text('issued_by_name').notNull().default(''),
+    issuedAt: timestamp('issued_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('revision_sheet_number_idx').on(t.sheetId, t.number)],
+);
+
+export const reviewVerdictEnum = pgEnum('review_verdict', ['reviewed', 'approved']);
+
+// Marks on a revision by a member or by someone holding a viewer link (a guest gives a name).
+export const revisionReview = pgTable(
+  'revision_review',
+  {
+    id: uuid('id').primaryKey().default(sql`gen_random_uuid()`),
+    revisionId: uuid('revision_id')
+      .notNull()
+      .references(() => revision.id, { onDelete: 'cascade' }),
+    reviewerId: text('reviewer_id').references(() => user.id, { onDelete: 'set null' }),
+    reviewerName: text('reviewer_name').notNull(),
+    verdict: reviewVerdictEnum('verdict').notNull(),
+    comment: text('comment').notNull().default(''),
+    viaLink: boolean('via_link').notNull().default(false),
+    createdAt: createdAt(),
+  },
+  (t) => [index('revision_review_revision_idx').on(t.revisionId, t.createdAt)],
+);

@@ -34,7 +34,10 @@ import { createDocumentStore } from './sync/document-store';
 import { RoomRegistry } from './sync/room-registry';
 import { attachSyncServer } from './sync/sync-server';
 import { migrateOnLoad } from './sync/migrate-on-load';
-import { seedDemoDocuments } from './demo-documents';
+import { seedDemoDocuments, seedDemoRevisions } from './demo-documents';
+import { revisionsRouter, type RevisionAccess } from './api/revisions/router';
+import { exportsRouter } from './api/exports/router';
+import { WorkerPool } from './workers/worker-pool';
 
 export interface RunningServer {
   url: string;
@@ -44,6 +47,7 @@ export interface RunningServer {
   auth: Auth;
   mailer: Mailer;
   rooms: RoomRegistry;
+  workers: WorkerPool;
   seeded: { email: string; role: string }[] | null;
   close(): Promise<void>;
 }
@@ -75,6 +79,8 @@ export async function startServer(
   }
 
   const rooms = new RoomRegistry(createDocumentStore(db), { log, upgrade: migrateOnLoad });
+  const workers = new WorkerPool(log);
+  const revisionDeps = { db, rooms, workers, mailer, config, log };
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', false);
@@ -104,6 +110,10 @@ export async function startServer(
   const view = express.Router({ mergeParams: true });
   view.use(limits.viewLookups, optionalUser(auth));
   view.use('/pins', postOnly(limits.pins), pinsRouter({ db, mailer, config, events: pinEvents, log, access: (req, res) => linkAccess(db, req, res) }));
+  view.use(
+    '/revisions',
+    revisionsRouter({ ...revisionDeps, access: async (req, res): Promise<RevisionAccess> => ({ ...(await linkAccess(db, req, res)), viaLink: true }) }),
+  );
   view.use('/', viewRouter(db, rooms));
   app.use('/api/view/:token', view);
 
@@ -134,6 +144,20 @@ export async function startServer(
       },
     }),
   );
+  api.use(
+    '/sheets/:sheetId/revisions',
+    revisionsRouter({
+      ...revisionDeps,
+      access: async (req, res): Promise<RevisionAccess> => {
+        const sheetId = idParam.safeParse((req.params as Record<string, string>).sheetId);
+        if (!sheetId.success) throw notFound('Sheet');
+        const user = currentUser(res);
+        const { sheet, role } = await requireSheetRole(db, sheetId.data, user.id, 'viewer');
+        return { sheetId: sheet.id, projectId: sheet.projectId, user, role, viaLink: false };
+      },
+    }),
+  );
+  api.use('/sheets', exportsRouter(db, rooms, workers));
   api.use('/sheets', postOnly(limits.links), linksRouter(db, rooms, config));
   api.use('/projects/:projectId/sheets', projectSheetsRouter(db));
   api.use('/projects/:projectId/members', membersRouter(db, rooms));
@@ -147,7 +171,10 @@ export async function startServer(
 
   const http = createHttpServer(app);
   const sync = attachSyncServer(http, { db, auth, rooms, log });
-  if (demoSheets.length > 0) await seedDemoDocuments(rooms, demoSheets, null);
+  if (demoSheets.length > 0) {
+    await seedDemoDocuments(rooms, demoSheets, null);
+    await seedDemoRevisions({ db, rooms, workers }, demoSheets);
+  }
   await new Promise<void>((resolve, reject) => {
     http.once('error', reject);
     http.listen(config.port, () => resolve());
@@ -162,11 +189,13 @@ export async function startServer(
     auth,
     mailer,
     rooms,
+    workers,
     seeded,
     async close() {
       pinEvents.closeAll();
       await sync.close();
       await rooms.closeAll();
+      await workers.close();
       const closed = new Promise<void>((resolve) => http.close(() => resolve()));
       http.closeAllConnections();
       await closed;

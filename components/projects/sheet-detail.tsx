@@ -6,6 +6,7 @@ import type { SheetResponse } from '@/shared/api';
 import { Screen } from '../layout/screen';
 import { space } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
+import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { formatDateTime } from '../ui/format';
 import { Icon } from '../ui/icon';
@@ -16,6 +17,8 @@ export interface SheetDetailProps {
   sheet: SheetResponse['sheet'];
   project: SheetResponse['project'];
   onOpenProject: () => void;
+  /** Opens the sheet's revisions (issue, review, compare, restore, reports). */
+  onOpenRevisions?: () => void;
   /** Inside another panel: no screen of its own. */
   embedded?: boolean;
 }
@@ -33,7 +36,7 @@ function Fact({ label, value, mono, testID }: { label: string; value: string; mo
   );
 }
 
-export function SheetDetail({ sheet, project, onOpenProject, embedded }: SheetDetailProps) {
+export function SheetDetail({ sheet, project, onOpenProject, onOpenRevisions, embedded }: SheetDetailProps) {
   const { color } = useTheme();
   const Frame = embedded ? EmbeddedFrame : Screen;
   return (
@@ -67,7 +70,9 @@ export function SheetDetail({ sheet, project, onOpenProject, embedded }: SheetDe
         <Fact label="Last changed by" value={sheet.updatedBy?.name ?? 'Unknown'} testID="sheet-updated-by" />
         <Fact label="Last changed" value={formatDateTime(sheet.updatedAt)} mono />
       </Card>
-
+      {onOpenRevisions ? (
+        <Button label="Revisions and reports" icon="layers" variant="secondary" onPress={onOpenRevisions} testID="open-revisions" />
+      ) : null}
     </Frame>
   );
 }

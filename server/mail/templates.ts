@@ -43,3 +43,16 @@ export function invitationMail(input: { inviter: string; projectName: string; ro
     `<p><a href="${escapeHtml(input.url)}">Accept the invitation</a> within 7 days (the link works once).</p>`;
   return { subject, text, html };
 }
+
+export function reviewMail(input: { reviewer: string; verdict: 'reviewed' | 'approved'; sheetName: string; number: number; comment: string; url: string; viaLink: boolean }) {
+  const what = input.verdict === 'approved' ? 'approved' : 'marked as reviewed';
+  const who = input.viaLink ? `${input.reviewer} (through a viewer link)` : input.reviewer;
+  const subject = `${input.reviewer} ${what} revision ${input.number} of ${input.sheetName}`;
+  const said = input.comment ? ['', input.comment] : [];
+  const text = [`${who} ${what} revision ${input.number} of the sheet "${input.sheetName}".`, ...said, '', `Open it: ${input.url}`].join('\n');
+  const html =
+    `<p>${escapeHtml(who)} ${what} revision ${input.number} of the sheet “${escapeHtml(input.sheetName)}”.</p>` +
+    (input.comment ? `<blockquote>${escapeHtml(input.comment).replace(/\n/g, '<br>')}</blockquote>` : '') +
+    `<p><a href="${escapeHtml(input.url)}">Open the revision</a></p>`;
+  return { subject, text, html };
+}

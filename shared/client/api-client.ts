@@ -17,6 +17,16 @@ import type {
 import type { Role } from '../roles';
 
 // Members, invitations, activity, viewer links and preferences: the shapes the server's routes answer with.
+import type {
+  ListRevisionsResponse,
+  ReviewCreateBody,
+  ReviewSummary,
+  RevisionComparison,
+  RevisionCreateBody,
+  RevisionResponse,
+  RevisionSummary,
+} from '../revisions';
+
 export type InvitationState = 'pending' | 'accepted' | 'withdrawn' | 'expired';
 export interface InvitationSummary {
   id: string;
@@ -212,6 +222,34 @@ export function createApiClient(options: ApiClientOptions) {
       request<{ preferences: Preferences }>('PATCH', '/api/me/preferences', body),
 
     listOutbox: () => request<OutboxResponse>('GET', '/api/outbox'),
+
+    listRevisions: (sheetId: string) => request<ListRevisionsResponse>('GET', `/api/sheets/${id(sheetId)}/revisions`),
+    getRevision: (sheetId: string, number: number) => request<RevisionResponse>('GET', `/api/sheets/${id(sheetId)}/revisions/${number}`),
+    issueRevision: (sheetId: string, body: RevisionCreateBody) =>
+      request<{ revision: RevisionSummary }>('POST', `/api/sheets/${id(sheetId)}/revisions`, body),
+    compareRevision: (sheetId: string, number: number) =>
+      request<{ comparison: RevisionComparison }>('GET', `/api/sheets/${id(sheetId)}/revisions/${number}/compare`),
+    restoreRevision: (sheetId: string, number: number) =>
+      request<{ ok: true; restoredFrom: number }>('POST', `/api/sheets/${id(sheetId)}/revisions/${number}/restore`, {}),
+    reviewRevision: (sheetId: string, number: number, body: ReviewCreateBody) =>
+      request<{ review: ReviewSummary; revision: RevisionSummary }>('POST', `/api/sheets/${id(sheetId)}/revisions/${number}/reviews`, body),
+    // Through a viewer link: look, compare and review (no account needed to look; a name to review).
+    getViewerLinkSheet: (token: string) =>
+      request<{ sheet: { id: string; name: string }; project: { name: string }; link: { expiresAt: string | null }; you: { id: string; name: string; guest: boolean } | null }>('GET', `/api/view/${id(token)}`),
+    listLinkRevisions: (token: string) => request<ListRevisionsResponse>('GET', `/api/view/${id(token)}/revisions`),
+    compareLinkRevision: (token: string, number: number) =>
+      request<{ comparison: RevisionComparison }>('GET', `/api/view/${id(token)}/revisions/${number}/compare`),
+    reviewLinkRevision: (token: string, number: number, body: ReviewCreateBody) =>
+      request<{ review: ReviewSummary; revision: RevisionSummary }>('POST', `/api/view/${id(token)}/revisions/${number}/reviews`, body),
+    linkRevisionExportUrl: (token: string, number: number, file: string) => `${baseUrl}/api/view/${id(token)}/revisions/${number}/export/${file}`,
+    /** A guest session with a name, so that someone holding a viewer link can review (better-auth's anonymous sign-in). */
+    signInAsGuest: async (name: string) => {
+      await request<unknown>('POST', '/api/auth/sign-in/anonymous', {});
+      await request<unknown>('POST', '/api/auth/update-user', { name });
+    },
+    /** Where a download lives (opened by the browser, which sends the session cookie itself). */
+    revisionExportUrl: (sheetId: string, number: number, file: string) => `${baseUrl}/api/sheets/${id(sheetId)}/revisions/${number}/export/${file}`,
+    sheetExportUrl: (sheetId: string, file: string) => `${baseUrl}/api/sheets/${id(sheetId)}/export/${file}`,
   };
 }
 

@@ -11,6 +11,7 @@ import {
   type ViewerLinkCreateBody,
 } from './api-client';
 import { resolveApiBaseUrl } from './api-base-url';
+import type { ReviewCreateBody, RevisionCreateBody } from '../revisions';
 import { auth } from './auth-client';
 
 let sharedApi: ApiClient | null = null;
@@ -34,6 +35,12 @@ export const queryKeys = {
   invitation: (token: string) => ['invitation', token] as const,
   viewerLinks: (sheetId: string) => ['sheets', sheetId, 'links'] as const,
   preferences: ['preferences'] as const,
+  revisions: (sheetId: string) => ['sheets', sheetId, 'revisions'] as const,
+  revision: (sheetId: string, number: number) => ['sheets', sheetId, 'revisions', number] as const,
+  comparison: (sheetId: string, number: number) => ['sheets', sheetId, 'revisions', number, 'compare'] as const,
+  linkSheet: (token: string) => ['view', token] as const,
+  linkRevisions: (token: string) => ['view', token, 'revisions'] as const,
+  linkComparison: (token: string, number: number) => ['view', token, 'revisions', number, 'compare'] as const,
 };
 
 // Session
@@ -372,5 +379,97 @@ export function useUpdatePreferences() {
     },
     onError: (_error, _body, context) => client.setQueryData(queryKeys.preferences, context?.before),
     onSuccess: (preferences) => client.setQueryData(queryKeys.preferences, preferences),
+  });
+}
+
+// Revisions of a sheet: issued by editors and owners, reviewed by anyone who sees the sheet, restored by owners.
+
+export function useRevisions(sheetId: string | undefined) {
+  return useQuery({
+    queryKey: queryKeys.revisions(sheetId ?? ''),
+    queryFn: async () => (await getApiClient().listRevisions(sheetId!)).revisions,
+    enabled: !!sheetId,
+  });
+}
+
+export function useRevision(sheetId: string, number: number | null) {
+  return useQuery({
+    queryKey: queryKeys.revision(sheetId, number ?? 0),
+    queryFn: async () => (await getApiClient().getRevision(sheetId, number!)).revision,
+    enabled: !!sheetId && number !== null,
+  });
+}
+
+/** Compared with the live sheet on request (it solves the live sheet on the server). */
+export function useRevisionComparison(sheetId: string, number: number | null, enabled: boolean) {
+  return useQuery({
+    queryKey: queryKeys.comparison(sheetId, number ?? 0),
+    queryFn: async () => (await getApiClient().compareRevision(sheetId, number!)).comparison,
+    enabled: enabled && !!sheetId && number !== null,
+    staleTime: 0,
+  });
+}
+
+export function useIssueRevision(sheetId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: async (body: RevisionCreateBody) => (await getApiClient().issueRevision(sheetId, body)).revision,
+    onSuccess: () => client.invalidateQueries({ queryKey: queryKeys.revisions(sheetId) }),
+  });
+}
+
+export function useRestoreRevision(sheetId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (number: number) => getApiClient().restoreRevision(sheetId, number),
+    onSuccess: () => client.invalidateQueries({ queryKey: queryKeys.revisions(sheetId) }),
+  });
+}
+
+export function useReviewRevision(sheetId: string, number: number) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (body: ReviewCreateBody) => getApiClient().reviewRevision(sheetId, number, body),
+    onSuccess: () => client.invalidateQueries({ queryKey: queryKeys.revisions(sheetId) }),
+  });
+}
+
+// Revisions through a viewer link.
+
+export function useLinkSheet(token: string) {
+  return useQuery({ queryKey: queryKeys.linkSheet(token), queryFn: () => getApiClient().getViewerLinkSheet(token), enabled: !!token, retry: false });
+}
+
+export function useLinkRevisions(token: string) {
+  return useQuery({
+    queryKey: queryKeys.linkRevisions(token),
+    queryFn: async () => (await getApiClient().listLinkRevisions(token)).revisions,
+    enabled: !!token,
+    retry: false,
+  });
+}
+
+export function useLinkComparison(token: string, number: number | null, enabled: boolean) {
+  return useQuery({
+    queryKey: queryKeys.linkComparison(token, number ?? 0),
+    queryFn: async () => (await getApiClient().compareLinkRevision(token, number!)).comparison,
+    enabled: enabled && !!token && number !== null,
+    staleTime: 0,
+  });
+}
+
+export function useLinkReview(token: string, number: number) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (body: ReviewCreateBody) => getApiClient().reviewLinkRevision(token, number, body),
+    onSuccess: () => client.invalidateQueries({ queryKey: queryKeys.linkRevisions(token) }),
+  });
+}
+
+export function useGuestName(token: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (name: string) => getApiClient().signInAsGuest(name),
+    onSuccess: () => Promise.all([client.invalidateQueries({ queryKey: queryKeys.linkSheet(token) }), client.invalidateQueries({ queryKey: queryKeys.session })]),
   });
 }

@@ -14,6 +14,9 @@ export * from './types';
 export * from './placement';
 export { BUS_HALF_LENGTH } from './bus';
 export { LANE_SPACING } from './run';
+export * from './ink';
+export * from './tag-shapes';
+export { elementDetail } from './element-detail';
 
 /** The fields of an element that its symbol depends on; everything optional because readers tolerate bad data. */
 export interface SymbolSource {

@@ -101,7 +101,7 @@ export default function SheetScreen() {
     />
   );
   const palette = <Palette chosen={ui.placeKind} onChoose={a.choosePlace} columns={isPhone ? 2 : 1} />;
-  const about = <SheetDetail sheet={found.sheet} project={found.project} onOpenProject={goBack} embedded />;
+  const about = <SheetDetail sheet={found.sheet} project={found.project} onOpenProject={goBack} onOpenRevisions={() => router.push(`/revisions/${sheetId}`)} embedded />;
   const cautions = <Cautions caution={view.caution} assumptions={view.assumptions} standardLabel={view.standardLabel} />;
   const crew = <CrewList crew={view.crew} status={view.link.status} />;
 

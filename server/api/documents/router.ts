@@ -17,6 +17,22 @@ const bySheet = { params: z.object({ sheetId: idParam }) };
 /** Sheets can be large: their import gets its own body limit, parsed before the API's default one. */
 export const documentBodyParser = express.json({ limit: '25mb' });
 
+/**
+ * Validates a sheet JSON document and makes the room hold it, as one server-side transaction (imports, restores).
+ * An invalid document changes nothing and answers 400 with the path of each problem.
+ */
+export async function applySheetDocument(rooms: RoomRegistry, sheetId: string, json: unknown, userId: string) {
+  const read = readSheet(json);
+  if (!read.ok) {
+    throw badRequest(
+      'The sheet is not valid; nothing was changed',
+      read.issues.map((i) => ({ path: i.path ? `body.${i.path}` : 'body', message: i.message })),
+    );
+  }
+  await rooms.withRoom(sheetId, (room) => room.transact((doc) => writeSheet(doc, read.sheet), userId));
+  return read;
+}
+
 export function documentsRouter(db: Database, rooms: RoomRegistry): Router {
   const r = Router();
 
@@ -32,14 +48,7 @@ export function documentsRouter(db: Database, rooms: RoomRegistry): Router {
     const user = currentUser(res);
     const { sheetId } = valid(res, bySheet).params;
     await requireSheetRole(db, sheetId, user.id, 'editor');
-    const read = readSheet(req.body);
-    if (!read.ok) {
-      throw badRequest(
-        'The sheet is not valid; nothing was changed',
-        read.issues.map((i) => ({ path: i.path ? `body.${i.path}` : 'body', message: i.message })),
-      );
-    }
-    await rooms.withRoom(sheetId, (room) => room.transact((doc) => writeSheet(doc, read.sheet), user.id));
+    const read = await applySheetDocument(rooms, sheetId, req.body, user.id);
     res.json({
       ok: true,
       warnings: read.warnings,
