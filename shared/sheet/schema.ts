@@ -300,6 +300,8 @@ export const loadSchema = z
     /** Unbalanced three-phase loads: kW per element (A, B, C; for delta A is A–B, B is B–C, C is C–A). Replaces kw. */
     phaseKw: z.partialRecord(phaseIdSchema, nonNegative('phaseKw')).optional(),
     phasePowerFactor: z.partialRecord(phaseIdSchema, finite().gt(0).max(1)).optional(),
+    /** The panel's circuit number(s) the load is on, as written on its panel schedule ("7", "2,4"); a label only. */
+    circuit: z.string().max(20, 'circuit must be at most 20 characters').optional(),
   })
   .superRefine((l, ctx) => {
     const fractions = [l.constantImpedanceFraction, l.constantCurrentFraction, l.constantPowerFraction];
