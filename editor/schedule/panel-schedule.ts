@@ -48,6 +48,8 @@ export interface ScheduleRow {
   description: string;
   /** The panel's phases the circuit takes, in the load's own order. */
   phases: PhaseId[];
+  /** The phases it could take on this panel, written "A", "AB" or "ABC". */
+  phaseOptions: string[];
   connection: LoadElement['connection'];
   loadKind: LoadElement['loadKind'];
   givenAs: LoadElement['givenAs'];
@@ -215,6 +217,19 @@ export function imbalancePercent(values: number[]): number | null {
   return (100 * Math.max(...values.map((v) => Math.abs(v - mean)))) / mean;
 }
 
+const PAIRS: [PhaseId, PhaseId][] = [
+  ['A', 'B'],
+  ['B', 'C'],
+  ['C', 'A'],
+];
+
+/** The phases (or pairs) a circuit of this connection can take on a panel with these phase bars. */
+export function phaseOptionsFor(connection: LoadElement['connection'], busPhases: readonly PhaseId[]): string[] {
+  if (connection === 'line-to-neutral') return [...busPhases];
+  if (connection === 'line-to-line') return PAIRS.filter(([a, b]) => busPhases.includes(a) && busPhases.includes(b)).map((p) => p.join(''));
+  return busPhases.length === 3 ? ['ABC'] : [];
+}
+
 /** Natural order for circuit labels: "2" before "10", "2,4" by its first number. */
 function circuitOrder(a: string, b: string): number {
   return a.localeCompare(b, undefined, { numeric: true });
@@ -310,6 +325,7 @@ export function panelSchedule(sheet: Sheet, busId: string, result: SolveResult |
       circuitGiven: load.circuit !== undefined && load.circuit !== '',
       description: load.name || load.id,
       phases: busPhases,
+      phaseOptions: phaseOptionsFor(load.connection, phases),
       connection: load.connection,
       loadKind: load.loadKind,
       givenAs: load.givenAs,
