@@ -64,7 +64,7 @@ export interface ScheduleRow {
   behaviour: BehaviourChoice;
   behaviourLabel: string;
   breaker: ScheduleBreaker | null;
-  /** From the solve: the largest element current and the lowest element voltage. */
+  /** From the solve: the largest line current of the circuit and the lowest element voltage. */
   solved: { amperes: number; volts: number; kw: number } | null;
 }
 
@@ -288,20 +288,27 @@ export function panelSchedule(sheet: Sheet, busId: string, result: SolveResult |
     const solvedLoad = loadResults.get(load.id);
     let solved: ScheduleRow['solved'] = null;
     if (solvedLoad && solvedLoad.elements.length) {
-      solved = {
-        amperes: Math.max(...solvedLoad.elements.map((e) => e.amperes)),
-        volts: Math.min(...solvedLoad.elements.map((e) => e.volts)),
-        kw: solvedLoad.kw,
-      };
+      // Line currents of the circuit, by the load's own conductors (a delta load's line current is the difference
+      // of two element currents, Kirchhoff at its terminal).
+      const line: Record<string, Phasor> = { A: { re: 0, im: 0 }, B: { re: 0, im: 0 }, C: { re: 0, im: 0 } };
       for (const e of solvedLoad.elements) {
         // Labels name the load's own conductors, "A–N" or "A–B"; the current enters at the first, leaves at the second.
         const [p, q] = e.label.split('–') as [ConductorId, ConductorId];
         const i = elementCurrent(e);
-        const bp = f.toBus[p];
-        const bq = f.toBus[q];
-        if (bp) add(bp, i, 1);
-        if (bq) add(bq, i, -1);
+        for (const [c, sign] of [[p, 1], [q, -1]] as const) {
+          if (line[c]) {
+            line[c].re += sign * i.re;
+            line[c].im += sign * i.im;
+          }
+          const onBus = f.toBus[c];
+          if (onBus) add(onBus, i, sign);
+        }
       }
+      solved = {
+        amperes: Math.max(...Object.values(line).map((i) => Math.hypot(i.re, i.im))),
+        volts: Math.min(...solvedLoad.elements.map((e) => e.volts)),
+        kw: solvedLoad.kw,
+      };
     }
     const b = f.breaker;
     const br = b ? breakerResults.get(b.id) : undefined;

@@ -11,6 +11,7 @@ import { docFromSheet, readDoc } from '../../editor/document/sheet-doc';
 import { createUndoManager } from '../../editor/document/undo';
 import { imbalancePercent, panelSchedule } from '../../editor/schedule/panel-schedule';
 import { circuitEditWrites } from '../../editor/schedule/circuit-edit';
+import { smallSystem } from './support/small-system';
 
 function fixture(name: string): Sheet {
   const read = readSheet(JSON.parse(readFileSync(join(__dirname, '..', '..', 'solver', 'fixtures', name), 'utf8')));
@@ -60,10 +61,31 @@ describe('panel schedule of the Larkspur Row café panel', () => {
     expect(byId['point-of-sale'].phases).toEqual(['C']);
     expect(byId['espresso'].phases).toEqual(['A', 'B']);
     expect(byId['cafe-range'].phases).toEqual(['A', 'B', 'C']);
-    // no written circuit numbers: numbered 1..6 in drawing order (left to right)
-    expect(schedule.rows.map((r) => r.circuit)).toEqual(['1', '2', '3', '4', '5', '6']);
-    expect(schedule.rows[0].loadId).toBe('cafe-range'); // x = -390, the leftmost
+    // the circuits as written on the loads, in natural order ("2,4" after "1", "10" after "9")
+    expect(schedule.rows.map((r) => r.circuit)).toEqual(['1', '2,4', '3', '5', '6,8,10', '7,9,11']);
+    expect(schedule.rows.every((r) => r.circuitGiven)).toBe(true);
     expect(byId['walk-in-cooler'].behaviourLabel).toBe('by kind (P 100 %)'); // motor: constant power (solver/README.md)
+    expect(byId['espresso'].phaseOptions).toEqual(['AB', 'BC', 'CA']);
+    expect(byId['cafe-lights'].phaseOptions).toEqual(['A', 'B', 'C']);
+  });
+
+  it('reads each branch breaker’s loading: its largest pole current against its rating', () => {
+    for (const r of schedule.rows) {
+      const b = base.breakers.find((x) => x.breakerId === r.breaker!.id)!;
+      expect(r.breaker!.ratingAmperes).toBe(b.ratingAmperes);
+      // one breaker per load: the breaker carries exactly the load's current (Kirchhoff)
+      expect(r.breaker!.amperes!).toBeCloseTo(r.solved!.amperes, 6);
+      expect(r.breaker!.percentOfRating!).toBeCloseTo((100 * r.solved!.amperes) / b.ratingAmperes!, 6);
+    }
+  });
+
+  it('numbers circuits with no written number by their place on the drawing, left to right', () => {
+    const small = sheetOf(smallSystem());
+    const s = panelSchedule(small, 'panel', null)!;
+    expect(s.rows.map((r) => [r.circuit, r.loadId, r.circuitGiven])).toEqual([
+      ['1', 'la', false],
+      ['2', 'lb', false],
+    ]);
   });
 
   it('totals each phase from the data entered: kW / pf, line-to-line split half and half, three-phase in thirds', () => {
@@ -189,11 +211,16 @@ describe('editing a row', () => {
     expect(circuitEditWrites(sheet, s.phases, row, { description: '  ' })).toMatchObject({ ok: false });
   });
 
-  it('changes the phases of a circuit wired straight to the bars on its own connection', () => {
+  it('changes the phases on the connection from the bars, straight or through a breaker', () => {
     const sheet = fixture('larkspur-row.json');
     const s = panelSchedule(sheet, 'cafe-panel', null)!;
+    const small = sheetOf(smallSystem());
+    const sc = panelSchedule(small, 'panel', null)!;
+    const made = circuitEditWrites(small, sc.phases, sc.rows.find((r) => r.loadId === 'la')!, { phases: ['C'] });
+    expect(made).toEqual({ ok: true, edits: [{ where: 'connections', id: 'c3', changes: [{ path: ['conductorMap'], value: { N: 'N', C: 'A' } }] }] });
+    // through a branch breaker, the phases are chosen where the breaker takes them from the bars
     const row = s.rows.find((r) => r.loadId === 'espresso')!;
-    const made = circuitEditWrites(sheet, s.phases, row, { phases: ['B', 'C'] });
-    expect(made).toEqual({ ok: true, edits: [{ where: 'connections', id: 'c-espresso', changes: [{ path: ['conductorMap'], value: { B: 'A', C: 'B' } }] }] });
+    const through = circuitEditWrites(sheet, s.phases, row, { phases: ['B', 'C'] });
+    expect(through).toEqual({ ok: true, edits: [{ where: 'connections', id: 'c-espresso', changes: [{ path: ['conductorMap'], value: { B: 'A', C: 'B' } }] }] });
   });
 });

@@ -152,7 +152,8 @@ describe('placing imported circuits under a panel', () => {
     const doc = docFromSheet(sheet);
     const cmd = new SheetCommands(doc);
     const undo = createUndoManager(doc, cmd.origin);
-    const r = readScheduleCsv(GOOD, PANEL_208);
+    // the house panel's own circuits are numbered 1 to 10: these go in as 11 and up
+    const r = readScheduleCsv(GOOD.replace(/^1,/m, '11,').replace(/^3,/m, '13,').replace(/^5,/m, '15,').replace('"2,4"', '"12,14"').replace(/^6,/m, '16,'), PANEL_208);
     if (!r.ok) throw new Error('good file refused');
     const before = JSON.stringify(docToJson(doc));
     const placement = placeCircuits(sheet, 'house-panel', r.circuits);
@@ -174,20 +175,21 @@ describe('placing imported circuits under a panel', () => {
     for (const e of placement.elements) expect(e.y as number).toBeGreaterThan(Math.max(panel.y, lowestBefore));
     // the schedule now lists them with their written circuits and phases
     const schedule = panelSchedule(read.sheet, 'house-panel', null)!;
-    const imported = schedule.rows.filter((row) => row.circuitGiven);
+    const placedLoads = new Set(placement.elements.filter((e) => e.kind === 'load').map((e) => e.id));
+    const imported = schedule.rows.filter((row) => placedLoads.has(row.loadId));
     expect(imported.map((row) => [row.circuit, row.phases.join('')])).toEqual([
-      ['1', 'A'],
-      ['2,4', 'ABC'],
-      ['3', 'B'],
-      ['5', 'C'],
-      ['6', 'BC'],
+      ['11', 'A'],
+      ['12,14', 'ABC'],
+      ['13', 'B'],
+      ['15', 'C'],
+      ['16', 'BC'],
     ]);
-    expect(imported.find((row) => row.circuit === '1')!.breaker).toMatchObject({ ratingAmperes: 20 });
+    expect(imported.find((row) => row.circuit === '11')!.breaker).toMatchObject({ ratingAmperes: 20 });
     const solved = solveSheet(read.sheet);
     expect(solved.ok).toBe(true);
     if (solved.ok) {
       const withResults = panelSchedule(read.sheet, 'house-panel', solved.result)!;
-      expect(withResults.rows.find((row) => row.circuit === '1')!.breaker!.amperes!).toBeGreaterThan(9); // 1.2 kW at ~120 V
+      expect(withResults.rows.find((row) => row.circuit === '11')!.breaker!.amperes!).toBeGreaterThan(9); // 1.2 kW at ~120 V
     }
     undo.undo();
     expect(JSON.stringify(docToJson(doc))).toBe(before);

@@ -91,6 +91,18 @@ describe('Larkspur Row', () => {
     expect(apt2.neutralToGroundVolts!).toBeLessThan(60);
   });
 
+  it('a bolted line-to-ground fault at the café panel: a few kA, below the transformer-limited bound', () => {
+    // common practice, no source: a fault behind a transformer cannot exceed rated current / (%Z / 100) on an
+    // infinite primary: 150 kVA / (√3 · 208 V) / 0.031 = 13.4 kA; the café feeder and the PE return lower it further.
+    const r = results.get('cafe-ground-fault')!;
+    expect(r.fault).toBeDefined();
+    expect(r.fault!.busId).toBe('cafe-panel');
+    expect(r.fault!.phases).toEqual(['A']);
+    const bound = 150_000 / (Math.sqrt(3) * 208) / 0.031 / 1000;
+    expect(r.fault!.symmetricalKa).toBeGreaterThan(1);
+    expect(r.fault!.symmetricalKa).toBeLessThan(bound);
+  });
+
   it('a lost phase at the main back-feeds the dead phase through line-to-line loads: a named hazard', () => {
     const r = results.get('lost-phase-b')!;
     expect(r.warnings.filter((w) => /hazard/.test(w.message)).length).toBeGreaterThan(0);
@@ -130,6 +142,14 @@ describe('the farm', () => {
     expect(r.electrodes.find((e) => e.electrodeId === 'farm-rod')!.amperes).toBeGreaterThan(0.5);
     // beside each load, its constant-impedance answer
     expect(r.loads.every((l) => l.elements.every((e) => e.constantImpedanceVolts !== undefined))).toBe(true);
+  });
+
+  it('a 0.5 Ω line-to-ground fault at the barn panel is limited by the fault resistance', () => {
+    // Ohm: the current into the fault cannot exceed the 120 V leg voltage over the 0.5 Ω fault resistance (240 A)
+    const r = results.get('barn-ground-fault')!;
+    expect(r.fault!.busId).toBe('barn-panel');
+    expect(r.fault!.symmetricalKa * 1000).toBeGreaterThan(20);
+    expect(r.fault!.symmetricalKa * 1000).toBeLessThan(126 / 0.5);
   });
 
   it('a corroded 3 Ω splice is a milder version of the open neutral', () => {
