@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { readSheet, type Sheet } from '../../shared/sheet';
 import { SheetSolver, type SolveResult } from '../../solver';
 import { nonFiniteNumbers } from './helpers/finite';
+import { DEMO_SHEETS, DEMO_USERS } from '../../db/seed';
 
 function load(name: string): Sheet {
   const read = readSheet(JSON.parse(readFileSync(join(__dirname, '..', '..', 'solver', 'fixtures', name), 'utf8')));
@@ -160,6 +161,21 @@ describe('the farm', () => {
     };
     expect(shift('corroded-neutral-splice')).toBeGreaterThan(10);
     expect(shift('corroded-neutral-splice')).toBeLessThan(shift('open-service-neutral'));
+  });
+});
+
+describe('the demo pins', () => {
+  it('sit on elements of their sheet, at those elements, by demo users', () => {
+    for (const demo of DEMO_SHEETS) {
+      const sheet = load(demo.fixture);
+      expect(demo.pins.length).toBeGreaterThan(0);
+      for (const pin of demo.pins) {
+        const element = sheet.elements[pin.elementId];
+        expect(element, `${demo.fixture}: ${pin.elementId}`).toBeDefined();
+        expect([pin.x, pin.y]).toEqual([element.x, element.y]);
+        expect(DEMO_USERS.map((u) => u.email)).toContain(pin.author);
+      }
+    }
   });
 });
 
