@@ -29,16 +29,21 @@ const fixed = (n: number, digits = 1) => (Number.isFinite(n) ? n.toFixed(digits)
 const amountText = (r: ScheduleRow) => (r.givenAs === 'kw' ? `${fixed(r.kw, 2)} kW` : `${fixed(r.amperesGiven, 1)} A`);
 const phasesText = (r: ScheduleRow) => (r.phases.length ? r.phases.join('–') : '—');
 
-/** Breaker loading's standing: over its rating, at 80 % or more (the continuous-load limit in common practice), or fine. */
-function loading(r: ScheduleRow): { text: string; tone: TextTone; mark: string } {
+/**
+ * Breaker loading's standing, with a mark as well as a tint: ▲ over its rating, △ at 80 % or more (the limit for a
+ * continuous load in common practice, no source), none below.
+ */
+function loading(r: ScheduleRow): { text: string; short: string; rating: string; tone: TextTone; mark: string } {
   const b = r.breaker;
-  if (!b) return { text: 'no breaker drawn', tone: 'faint', mark: '' };
-  if (b.percentOfRating === undefined) return { text: b.ratingAmperes ? `${b.ratingAmperes} A` : 'no rating', tone: 'muted', mark: '' };
+  if (!b) return { text: 'no breaker drawn', short: '—', rating: '—', tone: 'faint', mark: '' };
+  const rating = b.ratingAmperes ? `${b.ratingAmperes} A` : 'no rating';
+  if (b.percentOfRating === undefined) return { text: rating, short: '—', rating, tone: 'muted', mark: '' };
   const pct = b.percentOfRating;
-  const text = `${fixed(b.amperes ?? 0)} A · ${fixed(pct, 0)} % of ${b.ratingAmperes} A`;
-  if (pct > 100) return { text, tone: 'danger', mark: '▲ ' };
-  if (pct >= 80) return { text, tone: 'danger', mark: '△ ' };
-  return { text, tone: 'ink', mark: '' };
+  const text = `${fixed(b.amperes ?? 0)} A, ${fixed(pct, 0)} % of ${b.ratingAmperes} A`;
+  const short = `${fixed(pct, 0)} %`;
+  if (pct > 100) return { text, short, rating, tone: 'danger', mark: '▲ ' };
+  if (pct >= 80) return { text, short, rating, tone: 'danger', mark: '△ ' };
+  return { text, short, rating, tone: 'ink', mark: '' };
 }
 
 function Summary({ s }: { s: PanelSchedule }) {
@@ -89,16 +94,17 @@ function Summary({ s }: { s: PanelSchedule }) {
 }
 
 const COLUMNS: { key: string; label: string; width: number; align?: 'right' }[] = [
-  { key: 'circuit', label: 'Circuit', width: 64 },
-  { key: 'description', label: 'Description', width: 220 },
-  { key: 'phases', label: 'Phases', width: 72 },
-  { key: 'load', label: 'Load', width: 92, align: 'right' },
-  { key: 'pf', label: 'PF', width: 52, align: 'right' },
-  { key: 'behaviour', label: 'Behaviour', width: 170 },
-  { key: 'solved', label: 'Drawn', width: 84, align: 'right' },
-  { key: 'breaker', label: 'Breaker loading', width: 200 },
-  { key: 'edit', label: '', width: 72 },
+  { key: 'circuit', label: 'Circuit', width: 60 },
+  { key: 'description', label: 'Description · behaviour', width: 220 },
+  { key: 'phases', label: 'Phases', width: 60 },
+  { key: 'load', label: 'Load', width: 84, align: 'right' },
+  { key: 'pf', label: 'PF', width: 48, align: 'right' },
+  { key: 'solved', label: 'Drawn', width: 70, align: 'right' },
+  { key: 'breaker', label: 'Breaker', width: 64, align: 'right' },
+  { key: 'loading', label: 'Loading', width: 76, align: 'right' },
+  { key: 'edit', label: '', width: 60 },
 ];
+const W = Object.fromEntries(COLUMNS.map((c) => [c.key, c.width])) as Record<string, number>;
 
 function Cell({ width, align, children }: { width: number; align?: 'right'; children: ReactNode }) {
   return <View style={[styles.cell, { width, alignItems: align === 'right' ? 'flex-end' : 'flex-start' }]}>{children}</View>;
@@ -123,35 +129,40 @@ function Table({ s, editable, editing, setEditing, onEditCircuit }: { s: PanelSc
           return (
             <View key={r.loadId}>
               <View role="row" style={[styles.row, { borderBottomColor: color.line }]} testID={`schedule-row-${r.loadId}`}>
-                <Cell width={64}>
+                <Cell width={W.circuit}>
                   <Text variant="number" tone={r.circuitGiven ? 'ink' : 'muted'}>
                     {r.circuit}
                   </Text>
                 </Cell>
-                <Cell width={220}>
+                <Cell width={W.description}>
                   <Text>{r.description}</Text>
-                </Cell>
-                <Cell width={72}>
-                  <Text variant="number">{phasesText(r)}</Text>
-                </Cell>
-                <Cell width={92} align="right">
-                  <Text variant="number">{amountText(r)}</Text>
-                </Cell>
-                <Cell width={52} align="right">
-                  <Text variant="number">{fixed(r.powerFactor, 2)}</Text>
-                </Cell>
-                <Cell width={170}>
-                  <Text variant="small">{r.behaviourLabel}</Text>
-                </Cell>
-                <Cell width={84} align="right">
-                  <Text variant="number">{r.solved ? `${fixed(r.solved.amperes)} A` : '—'}</Text>
-                </Cell>
-                <Cell width={200}>
-                  <Text variant="number" tone={l.tone} testID={`schedule-loading-${r.loadId}`}>
-                    {l.mark + l.text}
+                  <Text variant="small" tone="muted">
+                    {r.behaviourLabel}
                   </Text>
                 </Cell>
-                <Cell width={72}>
+                <Cell width={W.phases}>
+                  <Text variant="number">{phasesText(r)}</Text>
+                </Cell>
+                <Cell width={W.load} align="right">
+                  <Text variant="number">{amountText(r)}</Text>
+                </Cell>
+                <Cell width={W.pf} align="right">
+                  <Text variant="number">{fixed(r.powerFactor, 2)}</Text>
+                </Cell>
+                <Cell width={W.solved} align="right">
+                  <Text variant="number">{r.solved ? `${fixed(r.solved.amperes)} A` : '—'}</Text>
+                </Cell>
+                <Cell width={W.breaker} align="right">
+                  <Text variant="number" tone={r.breaker ? 'ink' : 'faint'}>
+                    {l.rating}
+                  </Text>
+                </Cell>
+                <Cell width={W.loading} align="right">
+                  <Text variant="number" tone={l.tone} testID={`schedule-loading-${r.loadId}`} accessibilityLabel={l.text}>
+                    {l.mark + l.short}
+                  </Text>
+                </Cell>
+                <Cell width={W.edit}>
                   {editable ? <Button label="Edit" variant="quiet" compact onPress={() => setEditing(editing === r.loadId ? null : r.loadId)} testID={`schedule-edit-${r.loadId}`} /> : null}
                 </Cell>
               </View>

@@ -17,7 +17,8 @@ export function useScheduleView(handle: EditorHandle | null, snapshot: MirrorSna
     if (!session) return { schedule: null, panels: [] };
     const sheet = session.reader.read(snapshot).sheet;
     const panels = Object.values(sheet.elements)
-      .filter((e) => e.kind === 'bus')
+      // Junctions (a pole top, a tap) have no circuits of their own; a panel picked on the drawing is kept.
+      .filter((e) => e.kind === 'bus' && (e.role !== 'junction' || e.id === busId))
       .map((e) => ({ id: e.id, name: e.name || e.id }))
       .sort((a, b) => a.name.localeCompare(b.name, undefined, { numeric: true }));
     return { schedule: busId ? panelSchedule(sheet, busId, shown) : null, panels };
