@@ -29,14 +29,14 @@ export const DEMO_SHEETS: readonly { name: string; fixture: string; pins: readon
     pins: [
       {
         elementId: 'apt-4-feeder',
-        x: 500,
+        x: 480,
         y: 860,
         author: 'editor@example.com',
         body: 'Apartment 4 reports lights flaring when the range is on. Compare with the what-if “Open neutral on the apartment 4 feeder” and check this feeder’s neutral at both ends.',
       },
       {
         elementId: 'cafe-panel',
-        x: -300,
+        x: -800,
         y: 980,
         author: 'owner@example.com',
         body: 'Before the café adds a second espresso machine: see the panel schedule (phase B carries the most) and the fault what-if against the 10 kA rating.',

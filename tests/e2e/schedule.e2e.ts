@@ -3,7 +3,7 @@
 // problem by line, nothing placed), then import a sheet from JSON (problems with paths first) after confirming.
 // The demo seed's pins are there too.
 import type { Page } from 'playwright-core';
-import { apiAs, demoProjectId, documentOf, newSheet, openAs, PHONE, WIDE } from './editor-support';
+import { apiAs, demoProjectId, documentOf, newSheet, openAs, PHONE, symbolBox, WIDE } from './editor-support';
 import { assert, el, ensureWebBuild, launchBrowser, log, screenshot, seeTestId, seeText, startServer } from './harness';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
@@ -58,6 +58,16 @@ async function main() {
     current = wide.page;
     const page = wide.page;
     await openSheet(page, server.url, building);
+    await screenshot(page, 'demo-building-wide');
+    // A closer look at the café panel's branch circuits as the demo draws them.
+    const cafeBox = await symbolBox(page, 'cafe-panel');
+    await page.evaluate(({ x, y }) => {
+      const w = (window as any).__phasewright;
+      const rect = (document.querySelector('[data-testid="sheet-canvas"]') as HTMLElement).getBoundingClientRect();
+      w.canvas.zoomAt({ x: x - rect.left, y: y - rect.top }, 3.5);
+    }, { x: cafeBox.x + cafeBox.width / 2, y: cafeBox.y + cafeBox.height / 2 + 40 });
+    await screenshot(page, 'demo-cafe-close-wide');
+    await page.evaluate(() => (window as any).__phasewright.actions.fit());
     await selectElement(page, 'cafe-panel');
     await el(page, 'inspector-schedule').click();
     await seeTestId(page, 'schedule-table');
@@ -148,6 +158,7 @@ async function main() {
     const phone = await openAs(browser, server, 'owner@example.com', PHONE);
     current = phone.page;
     await openSheet(phone.page, server.url, farmSheet);
+    await screenshot(phone.page, 'demo-farm-phone');
     await selectElement(phone.page, 'house-panel');
     await phone.page.evaluate(() => (window as any).__phasewright.actions.openPanel('inspector'));
     await el(phone.page, 'inspector-schedule').click();
