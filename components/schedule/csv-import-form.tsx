@@ -6,10 +6,9 @@ import { CSV_COLUMNS, REQUIRED_COLUMNS, type CsvReadResult, type ImportedCircuit
 import { radius, space } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
-import { canPickFiles, pickTextFile } from '../ui/pick-text-file';
 import { FormMessage } from '../ui/states';
 import { Text } from '../ui/text';
-import { TextField } from '../ui/text-field';
+import { TextSource } from './text-source';
 
 export interface CsvImportFormProps {
   panelName: string;
@@ -32,19 +31,6 @@ export function CsvImportForm(p: CsvImportFormProps) {
   const [fileError, setFileError] = useState<string | null>(null);
 
   const check = (t: string) => setResult(p.onRead(t));
-  const pick = async () => {
-    setFileError(null);
-    const picked = await pickTextFile('.csv,text/csv,text/plain', p.maxBytes);
-    if (!picked) return;
-    if ('tooLarge' in picked) {
-      setResult(null);
-      setFileError(`${picked.name} is too large: ${(picked.sizeBytes / 1e6).toFixed(1)} MB, at most ${p.maxBytes / 1e6} MB. Nothing was imported.`);
-      return;
-    }
-    setSource(picked.name);
-    setText(picked.text);
-    check(picked.text);
-  };
   const problems = result && !result.ok ? result.problems : [];
   const fileProblems = result && !result.ok ? result.fileProblems : [];
   const good = result?.ok ? result.circuits : [];
@@ -56,22 +42,26 @@ export function CsvImportForm(p: CsvImportFormProps) {
         A header row, then one circuit per row. Columns: {CSV_COLUMNS.map((c) => (REQUIRED_COLUMNS.includes(c) ? c : `${c} (optional)`)).join(', ')}. Phases as A, B, C,
         AB, BC, CA, ABC or ABCN; load as kW (or W, kVA, VA, A); behaviour impedance, current, power or by kind.
       </Text>
-      <View style={styles.buttons}>
-        {canPickFiles() ? <Button label="Choose a CSV file" icon="file-text" variant="secondary" compact onPress={() => void pick()} testID="csv-pick" /> : null}
-      </View>
-      <TextField
-        label={source ? `Text of ${source}` : 'Or paste the CSV here'}
-        value={text}
-        onChangeText={(t) => {
+      <TextSource
+        format="CSV"
+        accept=".csv,text/csv,text/plain"
+        maxBytes={p.maxBytes}
+        lines={5}
+        text={text}
+        source={source}
+        onText={(t, from) => {
           setText(t);
-          setSource(null);
-          setResult(null);
+          setSource(from);
+          setFileError(null);
+          // A chosen file is checked at once; typed text when asked.
+          if (from) check(t);
+          else setResult(null);
         }}
-        multiline
-        numberOfLines={5}
-        autoCapitalize="none"
-        autoCorrect={false}
-        testID="csv-text"
+        onTooLarge={(name, sizeBytes) => {
+          setResult(null);
+          setFileError(`${name} is too large: ${(sizeBytes / 1e6).toFixed(1)} MB, at most ${p.maxBytes / 1e6} MB. Nothing was imported.`);
+        }}
+        testIDs={{ pick: 'csv-pick', text: 'csv-text' }}
       />
       <View style={styles.buttons}>
         <Button label="Check the rows" variant="secondary" compact onPress={() => check(text)} testID="csv-check" />

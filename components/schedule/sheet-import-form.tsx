@@ -8,10 +8,9 @@ import { radius, space } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { ConfirmDialog } from '../ui/confirm-dialog';
-import { canPickFiles, pickTextFile } from '../ui/pick-text-file';
 import { FormMessage } from '../ui/states';
 import { Text } from '../ui/text';
-import { TextField } from '../ui/text-field';
+import { TextSource } from './text-source';
 
 export interface SheetImportFormProps {
   sheetName: string;
@@ -30,41 +29,31 @@ export function SheetImportForm(p: SheetImportFormProps) {
   const [fileError, setFileError] = useState<string | null>(null);
   const [confirming, setConfirming] = useState(false);
 
-  const pick = async () => {
-    setFileError(null);
-    const picked = await pickTextFile('.json,application/json', p.maxBytes);
-    if (!picked) return;
-    if ('tooLarge' in picked) {
-      setResult(null);
-      setFileError(`${picked.name} is too large: at most ${Math.round(p.maxBytes / 1024 / 1024)} MB. Nothing was changed.`);
-      return;
-    }
-    setSource(picked.name);
-    setText(picked.text);
-    setResult(p.onRead(picked.text));
-  };
 
   return (
     <View style={styles.root} testID="sheet-import">
       <Text variant="small" tone="muted">
         A sheet in Phasewright’s JSON format (any version this build knows: older ones are brought up to date). It replaces what is drawn on “{p.sheetName}”; one undo takes it back.
       </Text>
-      <View style={styles.buttons}>
-        {canPickFiles() ? <Button label="Choose a JSON file" icon="file-text" variant="secondary" compact onPress={() => void pick()} testID="sheet-import-pick" /> : null}
-      </View>
-      <TextField
-        label={source ? `Text of ${source}` : 'Or paste the JSON here'}
-        value={text}
-        onChangeText={(t) => {
+      <TextSource
+        format="JSON"
+        accept=".json,application/json"
+        maxBytes={p.maxBytes}
+        lines={6}
+        text={text}
+        source={source}
+        onText={(t, from) => {
           setText(t);
-          setSource(null);
-          setResult(null);
+          setSource(from);
+          setFileError(null);
+          // A chosen file is checked at once; typed text when asked.
+          setResult(from ? p.onRead(t) : null);
         }}
-        multiline
-        numberOfLines={6}
-        autoCapitalize="none"
-        autoCorrect={false}
-        testID="sheet-import-text"
+        onTooLarge={(name) => {
+          setResult(null);
+          setFileError(`${name} is too large: at most ${Math.round(p.maxBytes / 1024 / 1024)} MB. Nothing was changed.`);
+        }}
+        testIDs={{ pick: 'sheet-import-pick', text: 'sheet-import-text' }}
       />
       <View style={styles.buttons}>
         <Button label="Check the sheet" variant="secondary" compact onPress={() => setResult(p.onRead(text))} testID="sheet-import-check" />

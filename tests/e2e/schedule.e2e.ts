@@ -101,10 +101,19 @@ async function main() {
     await screenshot(page, 'schedule-csv-bad-wide');
     const before = await documentOf(owner, building);
 
-    // The fixed file: placed under the panel, connected, in one step.
+    // A 5 MB file is refused before it is read.
+    const big = 'circuit,description,phases,load\n' + '1,Lights,A,1.2\n'.repeat(350_000);
+    const bigChooser = page.waitForEvent('filechooser');
+    await el(page, 'csv-pick').click();
+    await (await bigChooser).setFiles({ name: 'huge-schedule.csv', mimeType: 'text/csv', buffer: Buffer.from(big) });
+    await seeText(page, /huge-schedule\.csv is too large: 5\.\d MB, at most 1 MB\. Nothing was imported\./);
+
+    // The fixed file, chosen from disk: checked at once, then placed under the panel, connected, in one step.
     const good = ['circuit,description,phases,load,power factor,breaker', '13,Dessert case,A,0.9,0.9,20', '15,Grinder,C,0.6,0.9,20', '17,Blender,B,1.1,0.9,20'].join('\n');
-    await el(page, 'csv-text').fill(good);
-    await el(page, 'csv-check').click();
+    const chooser = page.waitForEvent('filechooser');
+    await el(page, 'csv-pick').click();
+    await (await chooser).setFiles({ name: 'cafe-additions.csv', mimeType: 'text/csv', buffer: Buffer.from(good) });
+    await seeText(page, 'Text of cafe-additions.csv');
     await seeText(page, /Place 3 circuits under Café panel/);
     await screenshot(page, 'schedule-csv-preview-wide');
     await el(page, 'csv-import-confirm').click();
