@@ -21,7 +21,15 @@ export interface CsvImportFormProps {
 }
 
 const PREVIEW_COLUMNS = ['circuit', 'description', 'phases', 'load', 'power factor', 'behaviour', 'kind', 'breaker', 'volts'] as const;
-const WIDTH: Record<(typeof PREVIEW_COLUMNS)[number], number> = { circuit: 64, description: 180, phases: 64, load: 80, 'power factor': 64, behaviour: 96, kind: 96, breaker: 64, volts: 56 };
+const WIDTH: Record<(typeof PREVIEW_COLUMNS)[number], number> = { circuit: 60, description: 160, phases: 56, load: 72, 'power factor': 44, behaviour: 84, kind: 88, breaker: 60, volts: 48 };
+const HEADING: Partial<Record<(typeof PREVIEW_COLUMNS)[number], string>> = { 'power factor': 'PF' };
+
+/** How a good row was read: the amount in the load's unit, its wiring and voltage, its breaker. */
+function readAs(c: ImportedCircuit): string {
+  const amount = c.givenAs === 'kw' ? `${+c.kw.toFixed(3)} kW` : `${c.amperes} A`;
+  const wiring = c.connection === 'line-to-neutral' ? `${c.phases[0]}–N` : c.connection === 'line-to-line' ? c.phases.join('–') : c.connection === 'three-phase-wye' ? '3φ wye' : '3φ delta';
+  return `✓ ${amount}, ${wiring}, ${c.ratedVolts} V${c.breakerAmperes ? `, ${c.breakerAmperes} A breaker` : ''}`;
+}
 
 export function CsvImportForm(p: CsvImportFormProps) {
   const { color } = useTheme();
@@ -88,23 +96,28 @@ export function CsvImportForm(p: CsvImportFormProps) {
                   LINE
                 </Text>
               </View>
+              <View style={[styles.cell, { width: 250 }]}>
+                <Text variant="caption" tone="muted">
+                  READ AS
+                </Text>
+              </View>
               {PREVIEW_COLUMNS.map((c) => (
                 <View key={c} style={[styles.cell, { width: WIDTH[c] }]}>
                   <Text variant="caption" tone="muted">
-                    {c.toUpperCase()}
+                    {(HEADING[c] ?? c).toUpperCase()}
                   </Text>
                 </View>
               ))}
-              <View style={[styles.cell, { width: 260 }]}>
-                <Text variant="caption" tone="muted">
-                  CHECK
-                </Text>
-              </View>
             </View>
             {result.rows.map((r) => (
               <View key={r.line} role="row" style={[styles.row, { borderBottomColor: color.line, backgroundColor: r.problems.length ? color.dangerSoft : 'transparent' }]} testID={`csv-row-${r.line}`}>
                 <View style={[styles.cell, { width: 44 }]}>
                   <Text variant="number">{r.line}</Text>
+                </View>
+                <View style={[styles.cell, { width: 250 }]}>
+                  <Text variant="small" tone={r.problems.length ? 'danger' : 'success'}>
+                    {r.problems.length ? r.problems.map((x) => `✕ ${x.column ? `${x.column}: ` : ''}${x.message}`).join('\n') : r.circuit ? readAs(r.circuit) : ''}
+                  </Text>
                 </View>
                 {PREVIEW_COLUMNS.map((c) => (
                   <View key={c} style={[styles.cell, { width: WIDTH[c] }]}>
@@ -113,11 +126,6 @@ export function CsvImportForm(p: CsvImportFormProps) {
                     </Text>
                   </View>
                 ))}
-                <View style={[styles.cell, { width: 260 }]}>
-                  <Text variant="small" tone={r.problems.length ? 'danger' : 'success'}>
-                    {r.problems.length ? r.problems.map((x) => `✕ ${x.column ? `${x.column}: ` : ''}${x.message}`).join('\n') : '✓ good'}
-                  </Text>
-                </View>
               </View>
             ))}
           </View>

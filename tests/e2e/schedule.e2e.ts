@@ -162,6 +162,23 @@ async function main() {
     assert(wide.problems.length === 0, `browser problems (wide): ${wide.problems.join('; ')}`);
     await wide.context.close();
 
+    // ---- a viewer reads the schedule but cannot change it or import
+    const viewer = await openAs(browser, server, 'viewer@example.com', WIDE);
+    current = viewer.page;
+    await openSheet(viewer.page, server.url, building);
+    await selectElement(viewer.page, 'cafe-panel');
+    await el(viewer.page, 'inspector-schedule').click();
+    await seeTestId(viewer.page, 'schedule-table');
+    await seeText(viewer.page, 'Dessert case');
+    assert((await viewer.page.locator('[data-testid^="schedule-edit-"]').count()) === 0, 'a viewer is offered to edit circuits');
+    assert((await viewer.page.locator('[data-testid="schedule-import-csv"]').count()) === 0, 'a viewer is offered a CSV import');
+    await el(viewer.page, 'panel-schedule-view-close').click();
+    await viewer.page.evaluate(() => (window as any).__phasewright.actions.openPanel('about'));
+    await seeTestId(viewer.page, 'open-schedules');
+    assert((await viewer.page.locator('[data-testid="open-sheet-import"]').count()) === 0, 'a viewer is offered a sheet import');
+    assert(viewer.problems.length === 0, `browser problems (viewer): ${viewer.problems.join('; ')}`);
+    await viewer.context.close();
+
     // ---- phone: the farm's house panel as cards
     const farmSheet = await sheetIdByName(owner, projectId, 'Farm service, 120/240 V');
     const phone = await openAs(browser, server, 'owner@example.com', PHONE);
