@@ -2,7 +2,7 @@
 // Passwords are hashed by better-auth; the caller passes its sign-up function so db/ stays free of server code.
 import { count } from 'drizzle-orm';
 import type { Database } from './client';
-import { project, projectMember, sheet, user } from './schema';
+import { pin, project, projectMember, sheet, user } from './schema';
 
 export const DEMO_PASSWORD = 'larkspur-demo-2026';
 
@@ -12,11 +12,51 @@ export const DEMO_USERS = [
   { email: 'viewer@example.com', name: 'Ines Marlow', role: 'viewer' },
 ] as const;
 
-/** Each demo sheet's name and the fixture (solver/fixtures) that holds its drawing. */
-export const DEMO_SHEETS = [
-  { name: 'Building distribution', fixture: 'larkspur-row.json' },
-  { name: 'Farm service, 120/240 V', fixture: 'farm.json' },
-] as const;
+/** A pin on a demo sheet: on an element of its fixture (at that element's place on the drawing), by a demo user. */
+export interface DemoPin {
+  elementId: string;
+  x: number;
+  y: number;
+  author: (typeof DEMO_USERS)[number]['email'];
+  body: string;
+}
+
+/** Each demo sheet's name, the fixture (solver/fixtures) that holds its drawing, and its pins. */
+export const DEMO_SHEETS: readonly { name: string; fixture: string; pins: readonly DemoPin[] }[] = [
+  {
+    name: 'Building distribution',
+    fixture: 'larkspur-row.json',
+    pins: [
+      {
+        elementId: 'apt-4-feeder',
+        x: 480,
+        y: 860,
+        author: 'editor@example.com',
+        body: 'Apartment 4 reports lights flaring when the range is on. Compare with the what-if “Open neutral on the apartment 4 feeder” and check this feeder’s neutral at both ends.',
+      },
+      {
+        elementId: 'cafe-panel',
+        x: -800,
+        y: 980,
+        author: 'owner@example.com',
+        body: 'Before the café adds a second espresso machine: see the panel schedule (phase B carries the most) and the fault what-if against the 10 kA rating.',
+      },
+    ],
+  },
+  {
+    name: 'Farm service, 120/240 V',
+    fixture: 'farm.json',
+    pins: [
+      {
+        elementId: 'service-drop',
+        x: 0,
+        y: 600,
+        author: 'viewer@example.com',
+        body: 'The owner says the house lights dim and the barn lights brighten when the well pump runs. Is it the drop’s neutral splice?',
+      },
+    ],
+  },
+];
 
 export const DEMO_PROJECT = {
   name: 'Larkspur Row',
@@ -52,6 +92,18 @@ export async function seedDemo(db: Database, createUser: CreateUser): Promise<Se
       .insert(sheet)
       .values(DEMO_SHEETS.map((s) => ({ projectId: p.id, name: s.name, createdBy: ownerId, updatedBy: ownerId })))
       .returning({ id: sheet.id, name: sheet.name });
+    const pins = rows.flatMap((r) =>
+      DEMO_SHEETS.find((s) => s.name === r.name)!.pins.map((p, i) => ({
+        sheetId: r.id,
+        number: i + 1,
+        elementId: p.elementId,
+        x: p.x,
+        y: p.y,
+        authorId: ids[p.author],
+        body: p.body,
+      })),
+    );
+    if (pins.length) await tx.insert(pin).values(pins);
     return rows.map((r) => ({ id: r.id, fixture: DEMO_SHEETS.find((s) => s.name === r.name)!.fixture }));
   });
   return { users: DEMO_USERS.map((u) => ({ email: u.email, role: u.role })), sheets };

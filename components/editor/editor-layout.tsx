@@ -25,6 +25,8 @@ export interface EditorLayoutProps {
   panel: ReactNode;
   /** Phone only: the selection's bar, when nothing slides over it. */
   peek: ReactNode;
+  /** Wide only: a view too wide for the side pane, over the canvas. */
+  cover?: ReactNode;
 }
 
 export function EditorLayout(p: EditorLayoutProps) {
@@ -39,7 +41,7 @@ export function EditorLayout(p: EditorLayoutProps) {
         </View>
       </View>
       <View style={styles.corner}>{p.corner}</View>
-      {p.isPhone ? (p.panel ?? p.peek) : null}
+      {p.isPhone ? (p.panel ?? p.peek) : (p.cover ?? null)}
     </View>
   );
   if (p.isPhone) {

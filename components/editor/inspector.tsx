@@ -37,6 +37,8 @@ export interface InspectorProps {
   onDuplicate: () => void;
   onDelete: () => void;
   onAddChange: (change: WhatIfChange) => void;
+  /** Opens a panel's schedule (shown for buses). */
+  onOpenSchedule?: (busId: string) => void;
 }
 
 function Actions({ editable, onRotate, onDuplicate, onDelete, deleteLabel = 'Delete' }: { editable: boolean; onRotate?: () => void; onDuplicate?: () => void; onDelete: () => void; deleteLabel?: string }) {
@@ -95,6 +97,9 @@ export function Inspector(p: InspectorProps) {
         {s.kindLabel.toUpperCase()}
       </Text>
       <Actions editable={p.editable} onRotate={p.onRotate} onDuplicate={p.onDuplicate} onDelete={p.onDelete} />
+      {e.kind === 'bus' && p.onOpenSchedule ? (
+        <Button label="Panel schedule" icon="list" variant="secondary" compact onPress={() => p.onOpenSchedule!(e.id)} testID="inspector-schedule" style={styles.scheduleButton} />
+      ) : null}
       {s.invalid.length ? (
         <Text variant="small" tone="danger" role="alert" testID="inspector-invalid">
           Left out of the results until fixed: {s.invalid.join('; ')}
@@ -119,4 +124,5 @@ export function Inspector(p: InspectorProps) {
 const styles = StyleSheet.create({
   box: { gap: space.md },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  scheduleButton: { alignSelf: 'flex-start' },
 });

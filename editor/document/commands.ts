@@ -2,9 +2,9 @@
 // caller's own edits and listeners can tell local from remote changes.
 import * as Y from 'yjs';
 import type { z } from 'zod';
-import type { Connection, elementSchema, SheetSettings, WhatIfChange } from '../../shared/sheet';
+import type { Connection, elementSchema, Sheet, SheetSettings, WhatIfChange } from '../../shared/sheet';
 import { newId } from './ids';
-import { collection, sheetMeta, settingsMap, type Collection } from './sheet-doc';
+import { collection, sheetMeta, settingsMap, writeSheet, type Collection } from './sheet-doc';
 import { fromY, setAtPath, toY, type Plain } from './y-values';
 
 type WithOptionalId<T> = T extends unknown ? Omit<T, 'id'> & { id?: string } : never;
@@ -12,6 +12,12 @@ type ElementInput = z.input<typeof elementSchema>;
 /** An element as written: any of its fields (defaults fill the rest when read), the kind required. */
 export type NewElement = WithOptionalId<Partial<ElementInput> & Pick<ElementInput, 'kind'>> & Record<string, unknown>;
 export type NewConnection = Omit<Connection, 'id'> & { id?: string };
+/** Field writes to one entry of the document (several entries change together in one edit of a schedule row). */
+export interface EntryEdit {
+  where: Collection;
+  id: string;
+  changes: readonly { path: readonly string[]; value: Plain | undefined }[];
+}
 
 const plain = (v: unknown) => JSON.parse(JSON.stringify(v)) as Record<string, Plain>;
 
@@ -68,6 +74,39 @@ export class SheetCommands {
       }
       return true;
     });
+  }
+
+  /** Field writes to several entries in one transaction (one schedule row edits its load, breaker and feed). */
+  updateEntries(edits: readonly EntryEdit[]): boolean {
+    if (edits.every((e) => e.changes.length === 0)) return false;
+    return this.run(() => {
+      let any = false;
+      for (const edit of edits) {
+        const entry = collection(this.doc, edit.where).get(edit.id);
+        if (!entry) continue; // deleted meanwhile by a colleague
+        for (const { path, value } of edit.changes) {
+          if (path.length === 0 || path[0] === 'id') continue;
+          setAtPath(entry, path, value);
+          any = true;
+        }
+      }
+      return any;
+    });
+  }
+
+  /** Adds elements and the connections between them (and to existing elements) in one transaction. */
+  insertEntries(entries: { elements: (NewElement & { id: string })[]; connections: (NewConnection & { id: string })[] }): void {
+    this.run(() => {
+      const elements = collection(this.doc, 'elements');
+      for (const e of entries.elements) elements.set(e.id, toY(plain(e)) as Y.Map<unknown>);
+      const connections = collection(this.doc, 'connections');
+      for (const c of entries.connections) connections.set(c.id, toY(plain(c)) as Y.Map<unknown>);
+    });
+  }
+
+  /** Makes the document hold a whole sheet (an import), in one transaction; only what differs is written. */
+  replaceSheet(sheet: Sheet): void {
+    this.run(() => writeSheet(this.doc, sheet));
   }
 
   /** Turns elements by a quarter turn (or any multiple) about their own centres, in one transaction. */

@@ -6,7 +6,7 @@ import type { Point, Rect } from '../../shared/symbols';
 export type ToolName = 'select' | 'cut' | 'place';
 
 /** The sliding panels on a phone (side panes on a wide screen show the inspector and results together). */
-export type PanelName = 'none' | 'palette' | 'inspector' | 'results' | 'crew' | 'about' | 'cautions';
+export type PanelName = 'none' | 'palette' | 'inspector' | 'results' | 'crew' | 'about' | 'cautions' | 'schedule' | 'import-sheet';
 
 export interface ConnectPreview {
   from: { elementId: string; terminal: string; point: Point };
@@ -43,6 +43,8 @@ export interface EditorUiState {
   panel: PanelName;
   /** The bus whose phasor diagram is open. */
   phasorBusId: string | null;
+  /** The panel whose schedule is open (or was last). */
+  scheduleBusId: string | null;
 }
 
 export const EMPTY_SELECTION: ReadonlySet<string> = new Set();
@@ -62,5 +64,6 @@ export function initialUiState(): EditorUiState {
     message: null,
     panel: 'none',
     phasorBusId: null,
+    scheduleBusId: null,
   };
 }

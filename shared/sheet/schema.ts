@@ -305,6 +305,8 @@ export const loadSchema = z
     contributesToFaults: z.boolean().optional(),
     /** Subtransient reactance X"d, per unit on the motor's own kVA [0.17, solver/faults/motor-contribution.ts]. */
     subtransientReactancePu: positive('subtransientReactancePu').max(1, 'subtransientReactancePu must be at most 1').optional(),
+    /** The panel's circuit number(s) the load is on, as written on its panel schedule ("7", "2,4"); a label only. */
+    circuit: z.string().max(20, 'circuit must be at most 20 characters').optional(),
   })
   .superRefine((l, ctx) => {
     const fractions = [l.constantImpedanceFraction, l.constantCurrentFraction, l.constantPowerFraction];

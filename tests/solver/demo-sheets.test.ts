@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { readSheet, type Sheet } from '../../shared/sheet';
 import { SheetSolver, type SolveResult } from '../../solver';
 import { nonFiniteNumbers } from './helpers/finite';
+import { DEMO_SHEETS, DEMO_USERS } from '../../db/seed';
 
 function load(name: string): Sheet {
   const read = readSheet(JSON.parse(readFileSync(join(__dirname, '..', '..', 'solver', 'fixtures', name), 'utf8')));
@@ -91,6 +92,18 @@ describe('Larkspur Row', () => {
     expect(apt2.neutralToGroundVolts!).toBeLessThan(60);
   });
 
+  it('a bolted line-to-ground fault at the café panel: a few kA, below the transformer-limited bound', () => {
+    // common practice, no source: a fault behind a transformer cannot exceed rated current / (%Z / 100) on an
+    // infinite primary: 150 kVA / (√3 · 208 V) / 0.031 = 13.4 kA; the café feeder and the PE return lower it further.
+    const r = results.get('cafe-ground-fault')!;
+    expect(r.fault).toBeDefined();
+    expect(r.fault!.busId).toBe('cafe-panel');
+    expect(r.fault!.phases).toEqual(['A']);
+    const bound = 150_000 / (Math.sqrt(3) * 208) / 0.031 / 1000;
+    expect(r.fault!.symmetricalKa).toBeGreaterThan(1);
+    expect(r.fault!.symmetricalKa).toBeLessThan(bound);
+  });
+
   it('a lost phase at the main back-feeds the dead phase through line-to-line loads: a named hazard', () => {
     const r = results.get('lost-phase-b')!;
     expect(r.warnings.filter((w) => /hazard/.test(w.message)).length).toBeGreaterThan(0);
@@ -132,6 +145,14 @@ describe('the farm', () => {
     expect(r.loads.every((l) => l.elements.every((e) => e.constantImpedanceVolts !== undefined))).toBe(true);
   });
 
+  it('a 0.5 Ω line-to-ground fault at the barn panel is limited by the fault resistance', () => {
+    // Ohm: the current into the fault cannot exceed the 120 V leg voltage over the 0.5 Ω fault resistance (240 A)
+    const r = results.get('barn-ground-fault')!;
+    expect(r.fault!.busId).toBe('barn-panel');
+    expect(r.fault!.symmetricalKa * 1000).toBeGreaterThan(20);
+    expect(r.fault!.symmetricalKa * 1000).toBeLessThan(126 / 0.5);
+  });
+
   it('a corroded 3 Ω splice is a milder version of the open neutral', () => {
     // derived: the neutral shift grows with the neutral resistance
     const shift = (id: string) => {
@@ -140,6 +161,21 @@ describe('the farm', () => {
     };
     expect(shift('corroded-neutral-splice')).toBeGreaterThan(10);
     expect(shift('corroded-neutral-splice')).toBeLessThan(shift('open-service-neutral'));
+  });
+});
+
+describe('the demo pins', () => {
+  it('sit on elements of their sheet, at those elements, by demo users', () => {
+    for (const demo of DEMO_SHEETS) {
+      const sheet = load(demo.fixture);
+      expect(demo.pins.length).toBeGreaterThan(0);
+      for (const pin of demo.pins) {
+        const element = sheet.elements[pin.elementId];
+        expect(element, `${demo.fixture}: ${pin.elementId}`).toBeDefined();
+        expect([pin.x, pin.y]).toEqual([element.x, element.y]);
+        expect(DEMO_USERS.map((u) => u.email)).toContain(pin.author);
+      }
+    }
   });
 });
 

@@ -1,7 +1,7 @@
 // A sheet's page: the editor on the sheet's live document (the drawing, its results, the crew), with the sheet's
 // record one tap away in its details panel.
 import { Stack, useLocalSearchParams, useRouter } from 'expo-router';
-import type { ReactNode } from 'react';
+import { useMemo, type ReactNode } from 'react';
 import { View } from 'react-native';
 import { SheetCanvas } from '@/components/canvas/sheet-canvas';
 import { Cautions } from '@/components/editor/cautions';
@@ -20,12 +20,19 @@ import { TopBar } from '@/components/editor/top-bar';
 import { ViewButtons } from '@/components/editor/view-buttons';
 import { useResponsive } from '@/components/layout/use-responsive';
 import { SheetDetail } from '@/components/projects/sheet-detail';
+import { CoverPanel } from '@/components/schedule/cover-panel';
+import { SchedulePane } from '@/components/schedule/schedule-pane';
+import { SheetImportForm } from '@/components/schedule/sheet-import-form';
 import { useTheme } from '@/components/theme/use-theme';
 import { Button } from '@/components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Text } from '@/components/ui/text';
 import { useCanvasBindings, useSheetEditor } from '@/editor/ui/use-sheet-editor';
 import { useEditorView } from '@/editor/ui/use-editor-view';
+import { scheduleActions } from '@/editor/ui/schedule-actions';
+import { useScheduleView } from '@/editor/ui/use-schedule-view';
+import { MAX_CSV_BYTES } from '@/editor/schedule/schedule-csv';
+import { MAX_SHEET_JSON_BYTES } from '@/editor/import/sheet-import';
 import { isApiError } from '@/shared/client/api-client';
 import { useSession, useSheet } from '@/shared/client/queries';
 
@@ -45,10 +52,12 @@ export default function SheetScreen() {
   const view = useEditorView(handle);
   const bindings = useCanvasBindings(handle);
   const a = handle?.actions;
+  const sa = useMemo(() => (handle ? scheduleActions(handle.session) : null), [handle]);
+  const scheduleView = useScheduleView(handle, view.snapshot, view.results.active ?? view.results.base, view.ui.scheduleBusId);
 
   const goBack = () => (sheet.data ? router.dismissTo(`/projects/${sheet.data.project.id}`) : router.replace('/'));
 
-  if (missing || sheet.error || !sheet.data || !handle || !a || !bindings.gesture) {
+  if (missing || sheet.error || !sheet.data || !handle || !a || !sa || !bindings.gesture) {
     return (
       <View style={{ flex: 1, backgroundColor: color.ground, justifyContent: 'center' }}>
         <Stack.Screen options={{ title: 'Sheet · Phasewright', headerTitle: 'Sheet' }} />
@@ -82,6 +91,7 @@ export default function SheetScreen() {
       onDuplicate={a.duplicateSelection}
       onDelete={a.deleteSelection}
       onAddChange={a.addChange}
+      onOpenSchedule={sa.openSchedule}
     />
   );
   const results = (
@@ -101,7 +111,34 @@ export default function SheetScreen() {
     />
   );
   const palette = <Palette chosen={ui.placeKind} onChoose={a.choosePlace} columns={isPhone ? 2 : 1} />;
-  const about = <SheetDetail sheet={found.sheet} project={found.project} onOpenProject={goBack} onOpenRevisions={() => router.push(`/revisions/${sheetId}`)} embedded />;
+  const say = (text: string) => handle.canvas.actions.say(text);
+  const about = (
+    <View style={{ gap: 12 }}>
+      <SheetDetail sheet={found.sheet} project={found.project} onOpenProject={goBack} onOpenRevisions={() => router.push(`/revisions/${sheetId}`)} embedded />
+      <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: 8 }}>
+        <Button label="Panel schedules" icon="list" variant="secondary" compact onPress={sa.openSchedules} testID="open-schedules" />
+        {view.editable ? <Button label="Import a sheet (JSON)" icon="upload" variant="secondary" compact onPress={sa.openSheetImport} testID="open-sheet-import" /> : null}
+      </View>
+    </View>
+  );
+  const schedule = (
+    <SchedulePane
+      schedule={scheduleView.schedule}
+      panels={scheduleView.panels}
+      caseLabel={view.caseLabel}
+      editable={view.editable}
+      isPhone={isPhone}
+      maxCsvBytes={MAX_CSV_BYTES}
+      onChoosePanel={sa.choosePanel}
+      onEditCircuit={(loadId, edit) => (ui.scheduleBusId ? sa.editCircuit(ui.scheduleBusId, loadId, edit) : 'No panel chosen')}
+      onReadCsv={sa.readCsv}
+      onImportCircuits={sa.importCircuits}
+      onMessage={say}
+    />
+  );
+  const sheetImport = (
+    <SheetImportForm sheetName={view.snapshot.name || found.sheet.name} maxBytes={MAX_SHEET_JSON_BYTES} onRead={sa.readSheetText} onReplace={sa.replaceSheet} onDone={say} onCancel={sa.close} />
+  );
   const cautions = <Cautions caution={view.caution} assumptions={view.assumptions} standardLabel={view.standardLabel} />;
   const crew = <CrewList crew={view.crew} status={view.link.status} />;
 
@@ -113,8 +150,11 @@ export default function SheetScreen() {
     crew: { title: 'Crew', body: crew, testID: 'panel-crew' },
     about: { title: 'Sheet details', body: about, testID: 'panel-about' },
     cautions: { title: 'Cautions', body: cautions, testID: 'panel-cautions' },
+    schedule: { title: 'Panel schedule', body: schedule, testID: 'panel-schedule-view' },
+    'import-sheet': view.editable ? { title: 'Import a sheet', body: sheetImport, testID: 'panel-sheet-import' } : null,
   };
   const open = panels[ui.panel];
+  const covering = !isPhone && (ui.panel === 'schedule' || ui.panel === 'import-sheet') ? open : null;
   const wideExtra = !isPhone && (ui.panel === 'crew' || ui.panel === 'about' || ui.panel === 'cautions') ? open : null;
 
   return (
@@ -218,7 +258,14 @@ export default function SheetScreen() {
             />
           ) : null
         }
-        panel={open ? <SlidingPanel title={open.title} onClose={a.closePanel} testID={open.testID}>{open.body}</SlidingPanel> : null}
+        panel={
+          open ? (
+            <SlidingPanel title={open.title} onClose={a.closePanel} testID={open.testID} maxHeightPercent={ui.panel === 'schedule' || ui.panel === 'import-sheet' ? 86 : undefined}>
+              {open.body}
+            </SlidingPanel>
+          ) : null
+        }
+        cover={covering ? <CoverPanel title={covering.title} onClose={a.closePanel} testID={covering.testID}>{covering.body}</CoverPanel> : null}
       />
     </>
   );
