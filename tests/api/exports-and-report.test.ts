@@ -110,7 +110,7 @@ describe('exports', () => {
     expect(csv.type).toMatch(/^text\/csv/);
     const lines = csv.bytes.toString('utf8').trim().split('\r\n');
     const results = (await viewer.get(`/api/sheets/${building.id}/revisions/1/results`)).body.results;
-    const header = lines[0].split(',');
+    const header = fields(lines[0]);
     expect(header.slice(0, 4)).toEqual(['element', 'kind', 'quantity', 'unit']);
     expect(header.slice(4)).toEqual(['Base case', ...results.whatIfs.map((w: any) => w.name)]);
     const service = results.base.result.buses.find((b: any) => b.role === 'service');
