@@ -8,3 +8,6 @@ export { solveFault, prepareFaults, faultResult, faultCase, withTransformerToler
 export { peakFactor, asymmetricalPeakAmperes } from './faults/peak-factor';
 export type * from './faults/fault-types';
 export { faultStudy, testXOverR, type FaultStudyOptions, type FaultStudyResult, type FaultStudyCase, type DutyCheck, type DutyStatus, type ServiceMarking } from './faults/fault-study';
+export { breakSweep, breakSweepSync } from './studies/break-sweep';
+export { readingsMatch, readingsMatchSync } from './studies/readings-match';
+export type * from './studies/study-types';
