@@ -19,6 +19,8 @@ export interface StudyRunOptions {
   sliceMs?: number;
 }
 
+export type BreakRanking = 'severity' | 'over' | 'under';
+
 /** How the loads behave in a study's cases. */
 export type StudyLoadModel = 'constant-impedance' | 'sheet';
 
@@ -50,6 +52,8 @@ export interface BreakSweepOptions extends StudyRunOptions {
    * again with the sheet's load laws. 'sheet': every case with the sheet's load laws (slower).
    */
   loadModel?: StudyLoadModel;
+  /** Rank by the larger excursion (default), by the over-voltage alone, or by the under-voltage alone. */
+  rankBy?: BreakRanking;
   /** With the constant-impedance model: how many of the worst cases to solve again with the sheet's load laws (default 10). */
   refineWorst?: number;
 }
@@ -75,14 +79,16 @@ export interface BreakCase {
   loadModel: StudyLoadModel;
   /** 'low-rank': through the base factors; 'full-solve': the case changed the live parts and was solved afresh. */
   method: 'low-rank' | 'full-solve';
-  /** Relative KCL residual of the case's linear solve. */
-  residual: number;
+  /** Relative residual of the answer through the base factors (a full solve checks itself). */
+  residual?: number;
   /** Why the case has no figures (the solve failed). */
   problem?: string;
+  /** Why solving again with the sheet's load laws failed (the constant-impedance figures stand). */
+  refineProblem?: string;
 }
 
 export interface BreakSweepResult {
-  /** Worst first: by severity, then loads outside, then loads without voltage. */
+  /** Worst first by the chosen ranking (severity by default), then loads outside, then loads without voltage. */
   cases: BreakCase[];
   /** The base case's extremes, for comparison. */
   base: Pick<BreakCase, 'worstOver' | 'worstUnder' | 'loadsOutside' | 'loadsTolerable' | 'loadsWithoutVoltage' | 'severityPercent'>;
