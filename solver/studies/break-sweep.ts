@@ -5,7 +5,6 @@ import type { ConductorId, Sheet } from '../../shared/sheet';
 import { buildNetwork, type BuiltNetwork } from '../network/build-network';
 import { NO_MODIFICATIONS, runConductorKey, type Modifications } from '../network/modifications';
 import type { ComplexVector, LinearSolver } from '../linear-system';
-import { solve } from '../sparse/solve';
 import { standardLabel } from '../results/standing';
 import { iterateLoads } from '../solve/load-iteration';
 import { solveBuiltNetwork, type Solution } from '../solve/solve-network';
@@ -70,7 +69,7 @@ export class BreakSweeper {
     const n = factorization.matrix.n;
     const { rhsRe, rhsIm } = solution.system;
     // The constant-impedance base answer: the known voltages alone on the right-hand side.
-    this.x0 = solve(factorization.numeric, rhsRe, rhsIm);
+    this.x0 = solver.solveBase(rhsRe, rhsIm);
     this.out = { re: new Float64Array(n), im: new Float64Array(n) };
     this.openedRe = new Float64Array(n);
     this.openedIm = new Float64Array(n);
@@ -91,7 +90,7 @@ export class BreakSweeper {
         work.push({ run, conductor });
       }),
     );
-    const solver = new OpeningSolver(network, solution.classes, solution.system, factorization);
+    const solver = new OpeningSolver(network, solution.classes, solution.system);
     const model = options.loadModel ?? 'constant-impedance';
     const refine = model === 'constant-impedance' ? Math.max(0, Math.floor(options.refineWorst ?? DEFAULT_REFINE_WORST)) : 0;
     return { ok: true, value: new BreakSweeper(sheet, network, solution, factorization, solver, watch, work, model, refine, options.rankBy ?? 'severity', watch.fromPins(solution.volts)) };

@@ -8,9 +8,12 @@
 import type { BuiltNetwork } from '../network/build-network';
 import { runAdmittance } from '../network/run';
 import type { RunLayout } from '../network/types';
-import type { Factorization, LinearSolver, Outcome, ComplexVector } from '../linear-system';
-import { cachedRowAbsSums, maxOf, multiplyInto, scaledResidual } from '../sparse/residual';
+import type { ComplexCsc, LinearSolver, Outcome, ComplexVector } from '../linear-system';
+import { analyse } from '../sparse/symbolic';
+import { factor, type NumericLu } from '../sparse/lu';
+import { cachedRowAbsSums, maxOf, multiplyInto } from '../sparse/residual';
 import { lowerSolveInPlace, permuteColumns, permuteRows, upperSolveInPlace } from '../sparse/solve';
+import { createSparseWorkspace, lowerSolveUnit, type SparseWorkspace } from '../sparse/sparse-rhs';
 import { denseComplexSolveInPlace } from '../sparse/dense-complex';
 import type { PinClasses } from '../solve/classes';
 import type { AssembledSystem } from '../solve/assemble';
@@ -57,21 +60,29 @@ export class OpeningSolver {
   private readonly bRe: Float64Array;
   private readonly bIm: Float64Array;
   private readonly aNorm: number;
+  /** The base matrix without its explicit zeros, and its own factors (sparser: see the constructor). */
+  readonly matrix: ComplexCsc;
+  private readonly lu: NumericLu;
+  private readonly ws: SparseWorkspace;
 
   constructor(
     readonly network: BuiltNetwork,
     readonly classes: PinClasses,
     readonly system: AssembledSystem,
-    readonly base: Factorization,
   ) {
-    this.n = base.matrix.n;
+    // The assembled pattern keeps explicit zeros (the uncoupled entries of every run block) so that what-ifs reuse
+    // one analysis; here no pattern is reused, so they go, and the factors, products and solves get cheaper.
+    this.matrix = withoutExplicitZeros(system.matrix);
+    this.lu = factor(analyse(this.matrix), this.matrix);
+    this.n = this.matrix.n;
+    this.ws = createSparseWorkspace(this.n);
     // One more column than the widest run: the tie that holds a cut-off part (see withTie).
     this.maxM = network.runs.reduce((m, r) => Math.max(m, r.conductors.length), 1) + 1;
     const arrays = () => Array.from({ length: this.maxM }, () => new Float64Array(this.n));
     this.wRe = arrays();
     this.wIm = arrays();
     [this.tmpRe, this.tmpIm, this.unitRe, this.unitIm, this.rRe, this.rIm, this.bRe, this.bIm] = Array.from({ length: 8 }, () => new Float64Array(this.n));
-    this.aNorm = maxOf(cachedRowAbsSums(base.matrix));
+    this.aNorm = maxOf(cachedRowAbsSums(this.matrix));
   }
 
   /** The update that opens conductor `index` of a run, or undefined when it is open already or changes nothing. */
@@ -131,25 +142,45 @@ export class OpeningSolver {
     return any ? u : undefined;
   }
 
+  /** The base answer A⁻¹ b (a new vector). */
+  solveBase(bRe: Float64Array, bIm: Float64Array): ComplexVector {
+    const x = { re: new Float64Array(this.n), im: new Float64Array(this.n) };
+    this.baseSolve(bRe, bIm, x.re, x.im);
+    return x;
+  }
+
   /** out = A⁻¹ b with the base factors, through the scratch arrays. */
   private baseSolve(bRe: Float64Array, bIm: Float64Array, outRe: Float64Array, outIm: Float64Array): void {
-    const lu = this.base.numeric;
+    const lu = this.lu;
     permuteRows(lu, bRe, bIm, this.tmpRe, this.tmpIm);
     lowerSolveInPlace(lu, this.tmpRe, this.tmpIm);
     upperSolveInPlace(lu, this.tmpRe, this.tmpIm);
     permuteColumns(lu, this.tmpRe, this.tmpIm, outRe, outIm);
   }
 
-  /** W = A⁻¹ U into the column scratch. */
+  /**
+   * W = A⁻¹ U into the column scratch. Each column has two nonzeros, so its forward half is two sparse unit solves
+   * (only the reach of each entry in L); the back substitution is dense.
+   */
   private columns(u: OpeningUpdate): void {
+    const lu = this.lu;
+    const { tmpRe, tmpIm } = this;
     for (let a = 0; a < u.m; a++) {
-      const cf = u.fromClass[a];
-      const ct = u.toClass[a];
-      if (cf >= 0) this.unitRe[cf] += u.fromScale[a];
-      if (ct >= 0) this.unitRe[ct] -= u.toScale[a];
-      this.baseSolve(this.unitRe, this.unitIm, this.wRe[a], this.wIm[a]);
-      if (cf >= 0) this.unitRe[cf] = 0;
-      if (ct >= 0) this.unitRe[ct] = 0;
+      tmpRe.fill(0);
+      tmpIm.fill(0);
+      for (const [c, s] of [
+        [u.fromClass[a], u.fromScale[a]],
+        [u.toClass[a], -u.toScale[a]],
+      ]) {
+        if (c < 0 || s === 0) continue;
+        const v = lowerSolveUnit(lu, this.ws, lu.rowPivot[c]);
+        for (let t = 0; t < v.idx.length; t++) {
+          tmpRe[v.idx[t]] += s * v.re[t];
+          tmpIm[v.idx[t]] += s * v.im[t];
+        }
+      }
+      upperSolveInPlace(lu, tmpRe, tmpIm);
+      permuteColumns(lu, tmpRe, tmpIm, this.wRe[a], this.wIm[a]);
     }
   }
 
@@ -256,7 +287,8 @@ export class OpeningSolver {
   /** Relative residual of x on (A + U D Uᵀ) x = b (b already the opened right-hand side). */
   residual(u: OpeningUpdate, x: ComplexVector, bRe: Float64Array, bIm: Float64Array): number {
     const { rRe, rIm } = this;
-    multiplyInto(this.base.matrix, x.re, x.im, rRe, rIm);
+    multiplyInto(this.matrix, x.re, x.im, rRe, rIm);
+    const n = this.n;
     const m = u.m;
     const px = Array.from({ length: m }, (_, c) => OpeningSolver.project(u, c, x.re, x.im));
     for (let a = 0; a < m; a++) {
@@ -279,15 +311,23 @@ export class OpeningSolver {
         rIm[ct] -= u.toScale[a] * ti;
       }
     }
+    // One pass for ||r||∞, ||x||∞ and ||b||∞; ||A + UDUᵀ||∞ is taken as the base's (an opening lowers a few entries).
     let worst = 0;
-    for (let i = 0; i < this.n; i++) {
+    let xMax = 0;
+    let bMax = 0;
+    for (let i = 0; i < n; i++) {
       const vr = rRe[i] - bRe[i];
       const vi = rIm[i] - bIm[i];
       const v = vr * vr + vi * vi;
       if (v > worst) worst = v;
+      const xv = x.re[i] * x.re[i] + x.im[i] * x.im[i];
+      if (xv > xMax) xMax = xv;
+      const bv = bRe[i] * bRe[i] + bIm[i] * bIm[i];
+      if (bv > bMax) bMax = bv;
     }
-    // ||A + UDUᵀ||∞ is taken as the base's: an opening only lowers a few entries.
-    return scaledResidual(Math.sqrt(worst), this.aNorm, x, bRe, bIm);
+    const denominator = this.aNorm * Math.sqrt(xMax) + Math.sqrt(bMax);
+    if (denominator === 0) return worst === 0 ? 0 : Infinity;
+    return Math.sqrt(worst) / denominator;
   }
 
   /**
@@ -342,7 +382,7 @@ export class OpeningSolver {
   }
 
   private diagonal(c: number): number {
-    const a = this.base.matrix;
+    const a = this.matrix;
     for (let p = a.colPtr[c]; p < a.colPtr[c + 1]; p++) if (a.rowIdx[p] === c) return Math.hypot(a.re[p], a.im[p]);
     return 0;
   }
@@ -415,7 +455,7 @@ export class OpeningSolver {
     const wRe = this.wRe.slice(0, m).map((w) => w.slice());
     const wIm = this.wIm.slice(0, m).map((w) => w.slice());
     const solver: LinearSolver = {
-      matrix: this.base.matrix,
+      matrix: this.matrix,
       method: 'low-rank',
       solve: (bRe, bIm): Outcome<ComplexVector> => {
         const x = { re: new Float64Array(this.n), im: new Float64Array(this.n) };
@@ -440,4 +480,28 @@ export class OpeningSolver {
     };
     return { solver, update: u };
   }
+}
+
+/** The same matrix without entries that are exactly zero (diagonals kept). */
+export function withoutExplicitZeros(a: ComplexCsc): ComplexCsc {
+  const n = a.n;
+  const colPtr = new Int32Array(n + 1);
+  let count = 0;
+  for (let j = 0; j < n; j++) {
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) if (a.re[p] !== 0 || a.im[p] !== 0 || a.rowIdx[p] === j) count++;
+    colPtr[j + 1] = count;
+  }
+  const rowIdx = new Int32Array(count);
+  const re = new Float64Array(count);
+  const im = new Float64Array(count);
+  let q = 0;
+  for (let j = 0; j < n; j++) {
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
+      if (a.re[p] === 0 && a.im[p] === 0 && a.rowIdx[p] !== j) continue;
+      rowIdx[q] = a.rowIdx[p];
+      re[q] = a.re[p];
+      im[q++] = a.im[p];
+    }
+  }
+  return { n, colPtr, rowIdx, re, im };
 }
