@@ -112,12 +112,15 @@ export interface Reading {
   volts: number;
 }
 
-/** A candidate cause; 'none' is the sound network with a fitted load level. */
+/**
+ * A candidate cause; 'none' is the sound network with a fitted load level. A degraded conductor is a resistance in
+ * series with one conductor of a run: a failing lug at either end of it or a bad splice along it (the readings
+ * cannot tell those apart: they are one series path).
+ */
 export type CandidateCause =
   | { kind: 'none' }
   | { kind: 'open-conductor'; runId: string; conductor: ConductorId }
-  | { kind: 'open-connection'; connectionId: string; conductor: ConductorId }
-  | { kind: 'degrade-connection'; connectionId: string; conductor: ConductorId; ohms: number };
+  | { kind: 'degrade-conductor'; runId: string; conductor: ConductorId; ohms: number };
 
 export interface ReadingsMatchOptions extends StudyRunOptions {
   /** Candidate conductors: all (default) or only neutrals. */
@@ -131,7 +134,7 @@ export interface ReadingsMatchOptions extends StudyRunOptions {
   tolerancePercent?: number;
   /** Range of the fitted load level, a factor on the rated loads of the affected service (default 0.1 to 3). */
   loadLevelRange?: [number, number];
-  /** Range of a degraded connection's fitted resistance, ohms (default 0.01 to 100). */
+  /** Range of a degraded conductor's fitted resistance, ohms (default 0.01 to 100). */
   ohmsRange?: [number, number];
 }
 
