@@ -43,6 +43,8 @@ export function prepareFaults(sheet: Sheet, mods: Modifications = NO_MODIFICATIO
   if (!outcome.ok) return outcome;
   const s = outcome.solution;
   const fs: FaultSystem = { network, classes: s.classes, parts: s.parts, system: s.system, solver: outcome.solver, prefault: s.volts, columns: new Map() };
+  // A plain factorization: transfer impedances by sparse unit solves on its factors.
+  if (outcome.factorization && outcome.solver.method === 'factor') fs.factors = outcome.factorization.numeric;
   return { ok: true, prepared: { sheet: duty, mods, solution: s, fs } };
 }
 
