@@ -13,7 +13,6 @@ import { analyse } from '../sparse/symbolic';
 import { factor, type NumericLu } from '../sparse/lu';
 import { cachedRowAbsSums, maxOf, multiplyInto } from '../sparse/residual';
 import { lowerSolveInPlace, permuteColumns, permuteRows, upperSolveInPlace } from '../sparse/solve';
-import { createSparseWorkspace, lowerSolveUnit, type SparseWorkspace } from '../sparse/sparse-rhs';
 import { denseComplexSolveInPlace } from '../sparse/dense-complex';
 import type { PinClasses } from '../solve/classes';
 import type { AssembledSystem } from '../solve/assemble';
@@ -63,7 +62,6 @@ export class OpeningSolver {
   /** The base matrix without its explicit zeros, and its own factors (sparser: see the constructor). */
   readonly matrix: ComplexCsc;
   private readonly lu: NumericLu;
-  private readonly ws: SparseWorkspace;
 
   constructor(
     readonly network: BuiltNetwork,
@@ -75,7 +73,6 @@ export class OpeningSolver {
     this.matrix = withoutExplicitZeros(system.matrix);
     this.lu = factor(analyse(this.matrix), this.matrix);
     this.n = this.matrix.n;
-    this.ws = createSparseWorkspace(this.n);
     // One more column than the widest run: the tie that holds a cut-off part (see withTie).
     this.maxM = network.runs.reduce((m, r) => Math.max(m, r.conductors.length), 1) + 1;
     const arrays = () => Array.from({ length: this.maxM }, () => new Float64Array(this.n));
@@ -159,8 +156,8 @@ export class OpeningSolver {
   }
 
   /**
-   * W = A⁻¹ U into the column scratch. Each column has two nonzeros, so its forward half is two sparse unit solves
-   * (only the reach of each entry in L); the back substitution is dense.
+   * W = A⁻¹ U into the column scratch. Each column has two nonzeros, so the forward substitution skips almost
+   * everything (it passes over zero entries); the back substitution is dense.
    */
   private columns(u: OpeningUpdate): void {
     const lu = this.lu;
@@ -168,17 +165,9 @@ export class OpeningSolver {
     for (let a = 0; a < u.m; a++) {
       tmpRe.fill(0);
       tmpIm.fill(0);
-      for (const [c, s] of [
-        [u.fromClass[a], u.fromScale[a]],
-        [u.toClass[a], -u.toScale[a]],
-      ]) {
-        if (c < 0 || s === 0) continue;
-        const v = lowerSolveUnit(lu, this.ws, lu.rowPivot[c]);
-        for (let t = 0; t < v.idx.length; t++) {
-          tmpRe[v.idx[t]] += s * v.re[t];
-          tmpIm[v.idx[t]] += s * v.im[t];
-        }
-      }
+      if (u.fromClass[a] >= 0) tmpRe[lu.rowPivot[u.fromClass[a]]] += u.fromScale[a];
+      if (u.toClass[a] >= 0) tmpRe[lu.rowPivot[u.toClass[a]]] -= u.toScale[a];
+      lowerSolveInPlace(lu, tmpRe, tmpIm);
       upperSolveInPlace(lu, tmpRe, tmpIm);
       permuteColumns(lu, tmpRe, tmpIm, this.wRe[a], this.wIm[a]);
     }
