@@ -14,15 +14,15 @@ import { downstreamElements } from '../solve/downstream';
 import { solveBuiltNetwork, type Solution } from '../solve/solve-network';
 import type { ComplexVector } from '../linear-system';
 import { withoutExplicitZeros } from './opening-solver';
+import { runAsync, runSync, type SlicedStudy } from './run-study';
 import { prepareColumns, type Branch, type PreparedColumns, type ReadingRow } from './reading-model';
-import type { CandidateCause, CandidateGroup, MatchCandidate, Reading, ReadingsMatchOptions, ReadingsMatchResult, StudyOutcome } from './study-types';
+import type { CandidateCause, CandidateGroup, MatchCandidate, Reading, ReadingsMatchOptions, ReadingsMatchResult, StudyOutcome, StudyProgress } from './study-types';
 
 const DEFAULT_TOLERANCE_PERCENT = 1;
 const DEFAULT_LEVEL_RANGE: [number, number] = [0.1, 3];
 const DEFAULT_OHMS_RANGE: [number, number] = [0.01, 100];
 /** Above this many affected load elements the level is not fitted (the update would be too wide). */
 const MAX_LEVEL_ELEMENTS = 240;
-const DEFAULT_SLICE_MS = 12;
 const GRID = 13;
 const GOLDEN_STEPS = 28;
 
@@ -92,7 +92,7 @@ interface Fitted {
   objective: number;
 }
 
-class ReadingsMatcher {
+class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
   private readonly rows: ReadingRow[];
   private readonly measured: Float64Array;
   readonly candidates: Candidate[] = [];
@@ -170,6 +170,10 @@ class ReadingsMatcher {
 
   get finished(): boolean {
     return this.next >= this.candidates.length;
+  }
+
+  progress(): StudyProgress {
+    return { done: this.next, total: this.candidates.length };
   }
 
   runSlice(ms: number, signal?: AbortSignal): void {
@@ -423,38 +427,11 @@ function readingRow(sheet: Sheet, network: BuiltNetwork, solution: Solution, rea
   return { p: cp, q: cq, sp: cp >= 0 ? scale[cp] : 0, sq: cq >= 0 ? scale[cq] : 0, offRe: offsetRe[p] - offsetRe[q], offIm: offsetIm[p] - offsetIm[q] };
 }
 
-const aborted = (options: ReadingsMatchOptions) => options.signal?.aborted === true;
-
 export function readingsMatchSync(sheet: Sheet, readings: Reading[], options: ReadingsMatchOptions = {}): StudyOutcome<ReadingsMatchResult> {
-  try {
-    const prepared = ReadingsMatcher.prepare(sheet, readings, options);
-    if (!prepared.ok) return prepared;
-    const m = prepared.value;
-    while (!m.finished && !aborted(options)) {
-      m.runSlice(options.sliceMs ?? DEFAULT_SLICE_MS, options.signal);
-      options.onProgress?.({ done: m.next, total: m.candidates.length });
-    }
-    return { ok: true, value: m.result(!m.finished) };
-  } catch (error) {
-    return { ok: false, error: { code: 'internal', message: `the readings match failed unexpectedly: ${(error as Error).message}`, elementIds: [] } };
-  }
+  return runSync('readings match', () => ReadingsMatcher.prepare(sheet, readings, options), options);
 }
 
-const yieldToEventLoop = (): Promise<void> => new Promise((resolve) => setTimeout(resolve, 0));
-
 /** The match in slices, yielding to the event loop between candidates; same result as readingsMatchSync. */
-export async function readingsMatch(sheet: Sheet, readings: Reading[], options: ReadingsMatchOptions = {}): Promise<StudyOutcome<ReadingsMatchResult>> {
-  try {
-    const prepared = ReadingsMatcher.prepare(sheet, readings, options);
-    if (!prepared.ok) return prepared;
-    const m = prepared.value;
-    while (!m.finished && !aborted(options)) {
-      m.runSlice(options.sliceMs ?? DEFAULT_SLICE_MS, options.signal);
-      options.onProgress?.({ done: m.next, total: m.candidates.length });
-      if (!m.finished) await yieldToEventLoop();
-    }
-    return { ok: true, value: m.result(!m.finished) };
-  } catch (error) {
-    return { ok: false, error: { code: 'internal', message: `the readings match failed unexpectedly: ${(error as Error).message}`, elementIds: [] } };
-  }
+export function readingsMatch(sheet: Sheet, readings: Reading[], options: ReadingsMatchOptions = {}): Promise<StudyOutcome<ReadingsMatchResult>> {
+  return runAsync('readings match', () => ReadingsMatcher.prepare(sheet, readings, options), options);
 }
