@@ -82,6 +82,8 @@ interface Candidate {
   /** Load part indices whose level is fitted. */
   parts: number[];
   levelElementIds: string[];
+  /** For a load's own connection: the load part the series resistance (or opening) is in. */
+  loadPart?: number;
 }
 
 interface Fitted {
@@ -95,6 +97,7 @@ interface Fitted {
 class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
   private readonly rows: ReadingRow[];
   private readonly measured: Float64Array;
+  private readonly readingPart: number[];
   readonly candidates: Candidate[] = [];
   readonly fitted: Fitted[] = [];
   next = 0;
@@ -117,6 +120,12 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
   ) {
     this.rows = rows;
     this.measured = Float64Array.from(readings, (r) => r.volts);
+    // Which load part each load reading is across (a series fault in that load's own connection divides it).
+    this.readingPart = readings.map((r) => {
+      if (r.at.kind !== 'load') return -1;
+      const at = r.at;
+      return network.loads.findIndex((p) => p.loadId === at.loadId && (at.element === undefined || p.label === at.element));
+    });
     this.tolerance = options.tolerancePercent ?? DEFAULT_TOLERANCE_PERCENT;
     this.levelRange = options.loadLevelRange ?? DEFAULT_LEVEL_RANGE;
     this.ohmsRange = options.ohmsRange ?? DEFAULT_OHMS_RANGE;
@@ -166,6 +175,27 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
         }
       });
     });
+    this.listConnectionCandidates(partsOf, causes);
+  }
+
+  /** A load's supply connection opened or degraded: single-element loads only (the series path is that element). */
+  private listConnectionCandidates(partsOf: Map<string, number[]>, causes: NonNullable<ReadingsMatchOptions['causes']>): void {
+    for (const connection of Object.values(this.sheet.connections)) {
+      const ends = [connection.to, connection.from];
+      const loadEnd = ends.find((e) => this.sheet.elements[e.elementId]?.kind === 'load' && e.terminal === 'supply');
+      if (!loadEnd) continue;
+      const parts = partsOf.get(loadEnd.elementId) ?? [];
+      if (parts.length !== 1) continue;
+      const loadIsTo = loadEnd === connection.to;
+      for (const [fromConductor, toConductor] of Object.entries(connection.conductorMap) as [ConductorId, ConductorId][]) {
+        const loadConductor = loadIsTo ? toConductor : fromConductor;
+        if (this.options.conductors === 'neutrals' && loadConductor !== 'N') continue;
+        const base = { connectionId: connection.id, conductor: fromConductor, loadId: loadEnd.elementId };
+        const common = { parts, levelElementIds: [loadEnd.elementId], loadPart: parts[0] };
+        if (causes.openings !== false) this.candidates.push({ cause: { kind: 'open-connection', ...base }, ...common });
+        if (causes.degradations !== false) this.candidates.push({ cause: { kind: 'degrade-connection', ...base, ohms: 0 }, ...common });
+      }
+    }
   }
 
   get finished(): boolean {
@@ -210,7 +240,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
   }
 
   /** D for a trial: the run block's change (opened, or R in series) and (level − 1) × each load element's admittance. */
-  private delta(layout: RunLayout | undefined, runRows: number[], index: number | undefined, ohms: number | 'open', level: number, parts: number[]) {
+  private delta(layout: RunLayout | undefined, runRows: number[], index: number | undefined, ohms: number | 'open', level: number, parts: number[], loadPart?: number) {
     const m = runRows.length + parts.length;
     const dRe = new Float64Array(m * m);
     const dIm = new Float64Array(m * m);
@@ -244,6 +274,23 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     parts.forEach((k, t) => {
       const y = this.network.loads[k].y;
       const at = (offset + t) * m + offset + t;
+      if (k === loadPart) {
+        // In series with the load's own connection: s·y / (1 + s·y·R), nothing when open.
+        let re = 0;
+        let im = 0;
+        if (ohms !== 'open') {
+          const sr = level * y.re;
+          const si = level * y.im;
+          const dr = 1 + sr * ohms;
+          const di = si * ohms;
+          const d = dr * dr + di * di;
+          re = (sr * dr + si * di) / d;
+          im = (si * dr - sr * di) / d;
+        }
+        dRe[at] = re - y.re;
+        dIm[at] = im - y.im;
+        return;
+      }
       dRe[at] = (level - 1) * y.re;
       dIm[at] = (level - 1) * y.im;
     });
@@ -265,7 +312,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
       parts = [];
       this.unfittedLevels++;
     }
-    const key = `${c.run ?? 'none'}|${c.conductor ?? ''}|${parts.length}`;
+    const key = `${c.run ?? 'none'}|${c.conductor ?? ''}|${c.loadPart ?? ''}|${parts.length}`;
     const { branches, runRows } = this.branches(c, parts);
     let prepared = this.cached?.key === key ? this.cached.prepared : undefined;
     if (!prepared) {
@@ -275,15 +322,29 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     const layout = c.run !== undefined ? this.network.runs[c.run] : undefined;
     const out = new Float64Array(this.rows.length);
     const trial = (ohms: number | 'open', level: number): number => {
-      const { dRe, dIm } = this.delta(layout, runRows, c.conductor, ohms, level, parts);
-      return prepared!.predict(dRe, dIm, out) ? this.objective(out) : Infinity;
+      const { dRe, dIm } = this.delta(layout, runRows, c.conductor, ohms, level, parts, c.loadPart);
+      if (!prepared!.predict(dRe, dIm, out)) return Infinity;
+      if (c.loadPart !== undefined) {
+        // The model's branch holds the resistance; the load's own terminals see V / (1 + s·y·R), nothing when open.
+        const y = this.network.loads[c.loadPart].y;
+        const divide = ohms === 'open' ? 0 : 1 / Math.hypot(1 + level * y.re * ohms, level * y.im * ohms);
+        this.readingPart.forEach((k, r) => {
+          if (k === c.loadPart) out[r] *= divide;
+        });
+      }
+      return this.objective(out);
     };
     const [lo, hi] = parts.length ? this.levelRange : [1, 1];
     const fitLevel = (ohms: number | 'open') => (parts.length ? minimiseLog((s) => trial(ohms, s), lo, hi) : { at: 1, value: trial(ohms, 1) });
     let ohms: number | undefined;
     let level: number;
     let value: number;
-    if (c.cause.kind === 'degrade-conductor') {
+    const opening = c.cause.kind === 'open-conductor' || c.cause.kind === 'open-connection';
+    if (c.cause.kind === 'open-connection') {
+      // The load is cut off: its level changes nothing.
+      level = 1;
+      value = trial('open', 1);
+    } else if (c.cause.kind === 'degrade-conductor' || c.cause.kind === 'degrade-connection') {
       // Alternate: the resistance for the current level, then the level for that resistance.
       level = 1;
       ohms = 1;
@@ -300,13 +361,13 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
         value = s.value;
       }
     } else {
-      const s = fitLevel(c.cause.kind === 'open-conductor' ? 'open' : 0);
+      const s = fitLevel(opening ? 'open' : 0);
       level = s.at;
       value = s.value;
     }
     if (!Number.isFinite(value)) return undefined;
-    trial(ohms ?? (c.cause.kind === 'open-conductor' ? 'open' : 0), level);
-    const cause: CandidateCause = c.cause.kind === 'degrade-conductor' ? { ...c.cause, ohms: ohms! } : c.cause;
+    trial(ohms ?? (opening ? 'open' : 0), level);
+    const cause: CandidateCause = c.cause.kind === 'degrade-conductor' || c.cause.kind === 'degrade-connection' ? { ...c.cause, ohms: ohms! } : c.cause;
     return { candidate: { ...c, cause, parts }, level, ohms, predicted: out.slice(), objective: value };
   }
 
@@ -335,7 +396,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
           : 'likely';
     const assumptions = [
       'Readings match: loads are constant impedances at a fitted level (the level stands for how much was switched on when the readings were taken), the same factor for every load the cause affects.',
-      'Readings match: candidates are the sound network and each run conductor opened or with a resistance in series (a failing lug at either end of the run or a splice along it); breaker poles and the ties between buses and breakers are not candidates yet.',
+      'Readings match: candidates are the sound network, each run conductor opened or with a resistance in series (a failing lug at either end of the run or a splice along it), and the supply connection of each single-element load opened or degraded; breaker poles, the ties between buses and breakers and the connections of three-phase loads are not candidates yet.',
       `Readings match: candidates whose predicted readings agree within ${tol} % of every reading are one group: the readings cannot tell them apart.`,
     ];
     if (this.skipped) assumptions.push(`Readings match: ${this.skipped} candidates leave part of the network without a reference (a protective conductor cut off, say) and change no reading of a load; they were left out.`);
@@ -375,6 +436,14 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
       case 'degrade-conductor':
         description = `${conductorWord(c.cause.conductor)} of run ${this.nameOf(c.cause.runId)} with ${c.cause.ohms.toPrecision(3)} Ω in series (a failing lug or splice)`;
         changes.cause = { kind: 'degrade-conductor', runId: c.cause.runId, conductor: c.cause.conductor, addedOhms: c.cause.ohms };
+        break;
+      case 'open-connection':
+        description = `${conductorWord(c.cause.conductor)} of connection ${c.cause.connectionId} to load ${this.nameOf(c.cause.loadId)} open`;
+        changes.cause = { kind: 'open-connection', connectionId: c.cause.connectionId, conductor: c.cause.conductor };
+        break;
+      case 'degrade-connection':
+        description = `${conductorWord(c.cause.conductor)} of connection ${c.cause.connectionId} to load ${this.nameOf(c.cause.loadId)} at ${c.cause.ohms.toPrecision(3)} Ω (a loose terminal)`;
+        changes.cause = { kind: 'degrade-connection', connectionId: c.cause.connectionId, conductor: c.cause.conductor, ohms: c.cause.ohms };
         break;
     }
     if (c.parts.length && Math.abs(f.level - 1) > 1e-9) {

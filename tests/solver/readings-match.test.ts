@@ -81,6 +81,27 @@ describe('readings match on synthetic readings with ±1 % noise', () => {
     expect(hit!.cause.ohms).toBeLessThan(3.6);
   });
 
+  it('a loose neutral terminal of one load (8 Ω) is found as that connection with about 8 Ω', () => {
+    const readings = synthetic(larkspur, mods({ degradedConnections: new Map([['c-apt-3-kitchen|N', 8]]) }), () => true, 13);
+    const r = readingsMatchSync(larkspur, readings, { conductors: 'neutrals' });
+    if (!r.ok) throw new Error(r.error.message);
+    const hit = r.value.groups[0].candidates.find((c) => c.cause.kind === 'degrade-connection' && c.cause.connectionId === 'c-apt-3-kitchen');
+    expect(hit, r.value.groups[0].candidates.map((c) => c.description).join('; ')).toBeDefined();
+    if (hit!.cause.kind !== 'degrade-connection') throw new Error('not a degraded connection');
+    expect(hit!.cause.ohms).toBeGreaterThan(6.4);
+    expect(hit!.cause.ohms).toBeLessThan(9.6);
+    expect(hit!.changes.cause).toEqual({ kind: 'degrade-connection', connectionId: 'c-apt-3-kitchen', conductor: 'N', ohms: hit!.cause.ohms });
+  });
+
+  it('the model of a candidate reproduces the full solver exactly at the true parameters', () => {
+    // source: the full solver with the cause applied as a degraded connection (its own network structure)
+    const readings = synthetic(larkspur, mods({ degradedConnections: new Map([['c-apt-3-kitchen|N', 8]]) }), () => true, 1, 0);
+    const r = readingsMatchSync(larkspur, readings, { conductors: 'neutrals', ohmsRange: [7.9999, 8.0001], loadLevelRange: [0.9999, 1.0001] });
+    if (!r.ok) throw new Error(r.error.message);
+    const hit = r.value.groups.flatMap((g) => g.candidates).find((c) => c.cause.kind === 'degrade-connection' && c.cause.connectionId === 'c-apt-3-kitchen')!;
+    expect(hit.rmsPercent).toBeLessThan(1e-3);
+  });
+
   it('sound readings at 80 % load favour no break', () => {
     const readings = synthetic(larkspur, mods({ loadScale: levelOf(larkspur, 'utility', 0.8) }), (_, i) => i % 3 === 0, 9, 0.003);
     const r = readingsMatchSync(larkspur, readings);
