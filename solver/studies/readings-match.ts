@@ -387,9 +387,12 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     const bestPercent = best?.rmsPercent ?? Infinity;
     const ratio = next ? (bestPercent > 0 ? next.rmsPercent / bestPercent : Infinity) : Infinity;
     const tol = this.tolerance;
+    const place = (c: MatchCandidate) =>
+      c.cause.kind === 'none' ? 'none' : c.cause.kind === 'open-conductor' || c.cause.kind === 'degrade-conductor' ? `run ${c.cause.runId}` : `connection ${c.cause.connectionId}`;
+    const locationsInBestGroup = new Set(groups[0]?.candidates.map(place) ?? []).size;
     const verdict: ReadingsMatchResult['certainty']['verdict'] = !best || bestPercent > 1.5 * tol
       ? 'poor-fit'
-      : next && next.rmsPercent <= 1.5 * tol
+      : (next && next.rmsPercent <= 1.5 * tol) || locationsInBestGroup > 1
         ? 'ambiguous'
         : !next || (next.rmsPercent > 2 * tol && ratio > 2)
           ? 'clear'
@@ -405,7 +408,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
       groups,
       best,
       fit: { rmsVolts: best?.rmsVolts ?? Infinity, rmsPercent: bestPercent, withinTolerance: bestPercent <= tol },
-      certainty: { gapVolts: next && best ? next.rmsVolts - best.rmsVolts : Infinity, ratio, verdict },
+      certainty: { gapVolts: next && best ? next.rmsVolts - best.rmsVolts : Infinity, ratio, locationsInBestGroup, verdict },
       candidatesTried: this.next,
       cancelled,
       assumptions,

@@ -172,10 +172,17 @@ export interface ReadingsMatchResult {
   fit: { rmsVolts: number; rmsPercent: number; withinTolerance: boolean };
   /**
    * How sure the ranking is: the next group's RMS residual over the best's (gap in volts too). 'clear' when the
-   * best fits within the tolerance and the next group's RMS is more than twice the tolerance; 'ambiguous' when
-   * the next group also fits; 'poor-fit' when even the best does not.
+   * best fits within the tolerance, the next group's RMS is more than twice the tolerance and its best group
+   * names one place; 'ambiguous' when the next group also fits or the best group names several places; 'poor-fit'
+   * when even the best does not fit.
    */
-  certainty: { gapVolts: number; ratio: number; verdict: 'clear' | 'likely' | 'ambiguous' | 'poor-fit' };
+  certainty: {
+    gapVolts: number;
+    ratio: number;
+    /** Distinct places among the best group's candidates (a run, a connection, or none): more than one is ambiguous. */
+    locationsInBestGroup: number;
+    verdict: 'clear' | 'likely' | 'ambiguous' | 'poor-fit';
+  };
   candidatesTried: number;
   cancelled: boolean;
   assumptions: string[];

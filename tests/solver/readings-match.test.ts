@@ -61,6 +61,7 @@ describe('readings match on synthetic readings with ±1 % noise', () => {
       expect(r.value.fit.withinTolerance).toBe(true);
       expect(r.value.fit.rmsPercent).toBeLessThan(1); // uniform ±1 % noise has an RMS of 0.58 %
       expect(r.value.certainty.verdict).toBe('clear');
+      expect(r.value.certainty.locationsInBestGroup).toBe(1);
       expect(r.value.certainty.ratio).toBeGreaterThan(2);
       // what shows the best on the drawing
       expect(r.value.best!.changes.cause).toEqual({ kind: 'open-conductor', runId: 'apt-4-feeder', conductor: 'N' });
@@ -147,6 +148,8 @@ describe('readings match: locations the readings cannot tell apart', () => {
     expect(top).toContain('open-conductor second N');
     expect(top).toContain('open-conductor first N');
     expect(r.value.groups[0].candidates.length).toBeGreaterThanOrEqual(2);
+    expect(r.value.certainty.locationsInBestGroup).toBeGreaterThanOrEqual(2);
+    expect(r.value.certainty.verdict).toBe('ambiguous');
     // the two openings predict the same readings to well within the meter's 1 %
     const [a, b] = r.value.groups[0].candidates.filter((c) => c.cause.kind === 'open-conductor');
     a.predictedVolts.forEach((v, i) => expect(Math.abs(v - b.predictedVolts[i])).toBeLessThan(0.01 * readings[i].volts));
