@@ -141,7 +141,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     const network = buildNetwork(sheet);
     const outcome = solveBuiltNetwork(network, sheet.settings, undefined, { constantImpedanceOnly: true });
     if (!outcome.ok) return { ok: false, error: { ...outcome.error, message: `the base case does not solve: ${outcome.error.message}` } };
-    const { classes, system } = outcome.solution;
+    const { system } = outcome.solution;
     if (system.matrix.n === 0) return fail('the sheet has no unknowns to match readings against');
     const rows: ReadingRow[] = [];
     for (const [i, reading] of readings.entries()) {
@@ -152,7 +152,6 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     const matrix = withoutExplicitZeros(system.matrix);
     const lu = factor(analyse(matrix), matrix);
     const x0 = solve(lu, system.rhsRe, system.rhsIm);
-    void classes;
     return { ok: true, value: new ReadingsMatcher(sheet, network, outcome.solution, lu, x0, rows, readings, options) };
   }
 
