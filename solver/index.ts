@@ -11,3 +11,6 @@ export { faultStudy, testXOverR, type FaultStudyOptions, type FaultStudyResult, 
 export { loadingStudy, loadingStudyOf, LOADING_STUDY_NOTES } from './studies';
 export type * from './studies/types';
 export { SOLVER_VERSION } from './version';
+export { breakSweep, breakSweepSync } from './studies/break-sweep';
+export { readingsMatch, readingsMatchSync } from './studies/readings-match';
+export type * from './studies/study-types';
