@@ -70,6 +70,49 @@ export interface ViewerLinkCreated {
 export interface Preferences {
   pinEmails: boolean;
 }
+/** What a viewer link opens, before the sheet's document: names, the link's expiry and who is asking. */
+export interface ViewLinkInfo {
+  sheet: { id: string; name: string };
+  project: { name: string };
+  link: { expiresAt: string | null };
+  you: { id: string; name: string; guest: boolean } | null;
+}
+export interface PinPerson {
+  id: string | null;
+  name: string;
+}
+export interface PinAttachmentSummary {
+  id: string;
+  fileName: string;
+  mediaType: string;
+  sizeBytes: number;
+}
+/** A pin with its thread, as the pin routes answer. */
+export interface PinThread {
+  id: string;
+  number: number;
+  elementId: string | null;
+  x: number;
+  y: number;
+  author: PinPerson;
+  body: string;
+  createdAt: string;
+  resolvedAt: string | null;
+  replies: { id: string; author: PinPerson; body: string; createdAt: string }[];
+  attachments: PinAttachmentSummary[];
+}
+export interface PinCreateBody {
+  body: string;
+  elementId?: string | null;
+  x: number;
+  y: number;
+}
+/** Where a sheet's pins are reached: as a member, or through a viewer link. */
+export type PinPlace = { sheetId: string } | { token: string };
+
+export function pinsPath(place: PinPlace): string {
+  return 'token' in place ? `/api/view/${encodeURIComponent(place.token)}/pins` : `/api/sheets/${encodeURIComponent(place.sheetId)}/pins`;
+}
 
 export type ApiErrorCode = ApiErrorBody['error']['code'] | 'network';
 export interface FieldIssue {
@@ -134,14 +177,16 @@ export function createApiClient(options: ApiClientOptions) {
 
   async function request<T>(method: string, path: string, body?: unknown): Promise<T> {
     const headers: Record<string, string> = { accept: 'application/json', ...options.headers };
-    if (body !== undefined) headers['content-type'] = 'application/json';
+    const form = typeof FormData !== 'undefined' && body instanceof FormData;
+    // A form sets its own multipart content type (with the boundary).
+    if (body !== undefined && !form) headers['content-type'] = 'application/json';
     let response: Response;
     try {
       response = await doFetch(`${baseUrl}${path}`, {
         method,
         headers,
         credentials: 'include',
-        body: body === undefined ? undefined : JSON.stringify(body),
+        body: body === undefined ? undefined : form ? (body as FormData) : JSON.stringify(body),
       });
     } catch (cause) {
       throw new ApiError(0, 'network', 'Cannot reach the server. Check the connection and try again.');
@@ -212,6 +257,24 @@ export function createApiClient(options: ApiClientOptions) {
       request<{ preferences: Preferences }>('PATCH', '/api/me/preferences', body),
 
     listOutbox: () => request<OutboxResponse>('GET', '/api/outbox'),
+
+    getViewLink: (token: string) => request<ViewLinkInfo>('GET', `/api/view/${id(token)}`),
+
+    listPins: (place: PinPlace) => request<{ pins: PinThread[] }>('GET', pinsPath(place)),
+    addPin: (place: PinPlace, body: PinCreateBody) => request<{ pin: PinThread }>('POST', pinsPath(place), body),
+    replyToPin: (place: PinPlace, pinId: string, body: string) =>
+      request<{ pin: PinThread }>('POST', `${pinsPath(place)}/${id(pinId)}/replies`, { body }),
+    resolvePin: (place: PinPlace, pinId: string, resolved: boolean) =>
+      request<{ pin: PinThread }>('PATCH', `${pinsPath(place)}/${id(pinId)}`, { resolved }),
+    attachToPin: (place: PinPlace, pinId: string, file: Blob, fileName: string) => {
+      const form = new FormData();
+      form.append('file', file, fileName);
+      return request<{ attachment: PinAttachmentSummary }>('POST', `${pinsPath(place)}/${id(pinId)}/attachments`, form);
+    },
+    /** Where an attachment is read (an image's thumbnail, a file to open). */
+    attachmentUrl: (place: PinPlace, pinId: string, attachmentId: string) =>
+      `${baseUrl}${pinsPath(place)}/${id(pinId)}/attachments/${id(attachmentId)}`,
+    pinEventsUrl: (place: PinPlace) => `${baseUrl}${pinsPath(place)}/events`,
   };
 }
 

@@ -87,4 +87,10 @@ export const auth = {
   requestPasswordReset: (body: { email: string; redirectTo: string }) =>
     unwrap(getAuthClient().requestPasswordReset(body)),
   resetPassword: (body: { newPassword: string; token: string }) => unwrap(getAuthClient().resetPassword(body)),
+  /** A guest who opened a viewer link and gave a name: an anonymous account (better-auth's plugin), then the name. */
+  signInAsGuest: async (name: string) => {
+    const client = getAuthClient();
+    await unwrap(client.$fetch('/sign-in/anonymous', { method: 'POST', body: {} }) as Promise<{ data: unknown; error: AuthFailure | null }>);
+    await unwrap(client.updateUser({ name }));
+  },
 };
