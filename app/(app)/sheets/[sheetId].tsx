@@ -18,6 +18,10 @@ import { Toast } from '@/components/editor/toast';
 import { ToolBar } from '@/components/editor/tool-bar';
 import { TopBar } from '@/components/editor/top-bar';
 import { ViewButtons } from '@/components/editor/view-buttons';
+import { ToolButton } from '@/components/editor/tool-button';
+import { PinLayer } from '@/components/pins/pin-layer';
+import { PinPanel } from '@/components/pins/pin-panel';
+import { pickFile } from '@/components/pins/pick-file';
 import { useResponsive } from '@/components/layout/use-responsive';
 import { SheetDetail } from '@/components/projects/sheet-detail';
 import { useTheme } from '@/components/theme/use-theme';
@@ -26,11 +30,12 @@ import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Text } from '@/components/ui/text';
 import { useCanvasBindings, useSheetEditor } from '@/editor/ui/use-sheet-editor';
 import { useEditorView } from '@/editor/ui/use-editor-view';
+import { usePinBoard } from '@/editor/ui/use-pin-board';
 import { isApiError } from '@/shared/client/api-client';
 import { useSession, useSheet } from '@/shared/client/queries';
 
 export default function SheetScreen() {
-  const params = useLocalSearchParams<{ sheetId: string }>();
+  const params = useLocalSearchParams<{ sheetId: string; pin?: string }>();
   const sheetId = String(params.sheetId ?? '');
   const router = useRouter();
   const { color, scheme } = useTheme();
@@ -45,6 +50,17 @@ export default function SheetScreen() {
   const view = useEditorView(handle);
   const bindings = useCanvasBindings(handle);
   const a = handle?.actions;
+  const pins = usePinBoard({
+    handle,
+    place: sheetId ? { sheetId } : null,
+    scene: view.scene,
+    nameOf: (id) => view.snapshot.elements.get(id)?.name || 'an element',
+    me: user ? { id: user.id } : null,
+    canModerate: !!role && role !== 'viewer',
+    showPanel: () => a?.openPanel('pins'),
+    initialPinNumber: params.pin ? Number(params.pin) : null,
+    pickFile: () => pickFile('image/png,image/jpeg,image/webp,image/gif,application/pdf,text/csv,.csv'),
+  });
 
   const goBack = () => (sheet.data ? router.dismissTo(`/projects/${sheet.data.project.id}`) : router.replace('/'));
 
@@ -104,12 +120,14 @@ export default function SheetScreen() {
   const about = <SheetDetail sheet={found.sheet} project={found.project} onOpenProject={goBack} embedded />;
   const cautions = <Cautions caution={view.caution} assumptions={view.assumptions} standardLabel={view.standardLabel} />;
   const crew = <CrewList crew={view.crew} status={view.link.status} />;
+  const pinPanel = <PinPanel {...pins.panel} askName={false} naming={false} onGiveName={async () => undefined} />;
 
   const panels: Record<string, { title: string; body: ReactNode; testID: string } | null> = {
     none: null,
     palette: view.editable ? { title: 'Add an element', body: palette, testID: 'panel-palette' } : null,
     inspector: { title: view.inspector.kind === 'element' ? view.inspector.element.name || 'Element' : 'Details', body: inspector, testID: 'panel-inspector' },
     results: { title: 'Results', body: results, testID: 'panel-results' },
+    pins: { title: 'Pins', body: pinPanel, testID: 'panel-pins' },
     crew: { title: 'Crew', body: crew, testID: 'panel-crew' },
     about: { title: 'Sheet details', body: about, testID: 'panel-about' },
     cautions: { title: 'Cautions', body: cautions, testID: 'panel-cautions' },
@@ -160,6 +178,7 @@ export default function SheetScreen() {
             onSize={bindings.onSize}
           />
         }
+        canvasLayer={<PinLayer {...pins.layer} />}
         overlay={
           <>
             <Legend standardLabel={view.standardLabel} compact={isPhone} onCautions={() => a.openPanel('cautions')} />
@@ -189,6 +208,12 @@ export default function SheetScreen() {
             onUndo={a.undo}
             onRedo={a.redo}
             onResults={() => a.openPanel(ui.panel === 'results' ? 'none' : 'results')}
+            extra={
+              <>
+                <ToolButton icon="flag" label="Pin" active={pins.placing} onPress={pins.placing ? pins.cancelPlacing : pins.startPin} testID="tool-pin" />
+                {isPhone ? <ToolButton icon="message-square" label="Pins" active={ui.panel === 'pins'} onPress={() => a.openPanel(ui.panel === 'pins' ? 'none' : 'pins')} testID="tool-pins" /> : null}
+              </>
+            }
           />
         }
         leftPane={view.editable ? <PaneSection title="Add an element">{palette}</PaneSection> : null}
@@ -199,6 +224,9 @@ export default function SheetScreen() {
                 {wideExtra.body}
               </PaneSection>
             ) : null}
+            <PaneSection title="Pins" testID="pane-pins">
+              {pinPanel}
+            </PaneSection>
             <PaneSection title="Inspector" testID="pane-inspector">
               {inspector}
             </PaneSection>
