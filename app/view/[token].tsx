@@ -22,7 +22,7 @@ import { ViewButtons } from '@/components/editor/view-buttons';
 import { useResponsive } from '@/components/layout/use-responsive';
 import { PinLayer } from '@/components/pins/pin-layer';
 import { PinPanel } from '@/components/pins/pin-panel';
-import { pickFile } from '@/components/pins/pick-file';
+import { pickFile, PIN_FILE_TYPES } from '@/components/pins/pick-file';
 import { ViewLinkAbout, ViewLinkGone } from '@/components/pins/view-link-notes';
 import { space } from '@/components/theme/tokens';
 import { useTheme } from '@/components/theme/use-theme';
@@ -34,7 +34,6 @@ import { useCanvasBindings, useSheetEditor } from '@/editor/ui/use-sheet-editor'
 import { isApiError } from '@/shared/client/api-client';
 import { useGuestSignIn, useViewLink } from '@/shared/client/pin-queries';
 
-const ACCEPT = 'image/png,image/jpeg,image/webp,image/gif,application/pdf,text/csv,.csv';
 // Whoever looks through a link is one visitor to the editor's session; the server names them on the socket.
 const VISITOR = { id: 'visitor', name: 'Visitor' };
 
@@ -61,7 +60,8 @@ export default function ViewLinkScreen() {
     me,
     canModerate: false,
     showPanel: () => a?.openPanel('pins'),
-    pickFile: () => pickFile(ACCEPT),
+    pickFile: () => pickFile(PIN_FILE_TYPES),
+    visibleShare: isPhone ? 0.42 : 1,
   });
 
   // While the socket is down, ask whether the link still works: a revoked link refuses the socket with a 410

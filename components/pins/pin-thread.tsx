@@ -88,7 +88,6 @@ export function PinThreadView(p: PinThreadProps) {
 
       {p.canWrite ? (
         <>
-          <NoteBox label="Reply" sendLabel="Reply" busy={p.replying} onSend={p.onReply} testID="pin-reply" />
           <View style={styles.row}>
             <Button label="Attach a photo or file" icon="paperclip" variant="secondary" compact loading={p.attaching} onPress={p.onAttach} testID="pin-attach" />
             {p.canResolve ? (
@@ -104,6 +103,7 @@ export function PinThreadView(p: PinThreadProps) {
             ) : null}
           </View>
           <FormMessage message={p.attachError} testID="pin-attach-error" />
+          <NoteBox label="Reply" sendLabel="Reply" busy={p.replying} onSend={p.onReply} testID="pin-reply" />
         </>
       ) : null}
     </View>

@@ -7,7 +7,7 @@ import type { PinPlace, PinThread } from '../../shared/client/api-client';
 import { getApiClient } from '../../shared/client/queries';
 import { useAddPin, useAttachToPin, usePinEvents, usePins, useReplyToPin, useResolvePin } from '../../shared/client/pin-queries';
 import type { Point } from '../../shared/symbols';
-import { screenToWorld, type Viewport } from '../canvas/viewport';
+import { screenToWorld, worldToScreen, type Viewport } from '../canvas/viewport';
 import { pinAnchor, pinTargetAt, type PinPosition } from '../pins/pin-anchor';
 import type { Scene } from '../canvas/scene';
 import type { EditorHandle } from './use-sheet-editor';
@@ -26,6 +26,8 @@ export interface PinBoardOptions {
   /** A pin to open once the pins are read (?pin=3 in the e-mailed link). */
   initialPinNumber?: number | null;
   pickFile: () => Promise<File | null>;
+  /** The share of the canvas's height left in sight when the pin panel is open (a phone's panel covers the rest). */
+  visibleShare: number;
 }
 
 function useViewport(handle: EditorHandle | null) {
@@ -85,6 +87,23 @@ export function usePinBoard(o: PinBoardOptions) {
     [list, o.scene, placeOf],
   );
 
+  // Brings a pin's flag into the part of the canvas left in sight (below the legend, above a phone's panel).
+  const reveal = useCallback(
+    (at: Point) => {
+      if (!handle) return;
+      const vp = handle.canvas.viewport;
+      const { width, height } = handle.canvas.viewSize;
+      if (width <= 0 || height <= 0) return;
+      const bottom = height * o.visibleShare;
+      const top = Math.min(130, bottom / 3);
+      const s = worldToScreen(vp, at);
+      // The flag rises about 36 px above the point it stands on.
+      if (s.x >= 24 && s.x <= width - 48 && s.y - 36 >= top && s.y <= bottom - 8) return;
+      handle.canvas.setViewport({ x: vp.x + (width / 2 - s.x), y: vp.y + ((top + bottom) / 2 + 18 - s.y), zoom: vp.zoom });
+    },
+    [handle, o.visibleShare],
+  );
+
   const startPin = useCallback(() => {
     setDraft(null);
     setOpenId(null);
@@ -97,11 +116,13 @@ export function usePinBoard(o: PinBoardOptions) {
     (screen: Point) => {
       if (!handle) return;
       const world = screenToWorld(handle.canvas.viewport, screen);
-      setDraft(pinTargetAt(handle.canvas.sceneIndex(), world, handle.canvas.viewport.zoom));
+      const target = pinTargetAt(handle.canvas.sceneIndex(), world, handle.canvas.viewport.zoom);
+      setDraft(target);
       setPlacing(false);
       o.showPanel();
+      reveal(pinAnchor(target, o.scene));
     },
-    [handle, o],
+    [handle, o, reveal],
   );
 
   const open = useCallback(
@@ -109,9 +130,12 @@ export function usePinBoard(o: PinBoardOptions) {
       setOpenId(pinId);
       setDraft(null);
       setAttachError(null);
-      if (pinId) o.showPanel();
+      if (!pinId) return;
+      o.showPanel();
+      const pin = list.find((p) => p.id === pinId);
+      if (pin) reveal(pinAnchor(pin, o.scene));
     },
-    [o],
+    [o, list, reveal],
   );
 
   const post = useCallback(
@@ -120,8 +144,9 @@ export function usePinBoard(o: PinBoardOptions) {
       const created = await add.mutateAsync({ body: text, elementId: draft.elementId, x: draft.x, y: draft.y });
       setDraft(null);
       setOpenId(created.id);
+      reveal(pinAnchor(draft, o.scene));
     },
-    [add, draft],
+    [add, draft, reveal, o.scene],
   );
 
   const onAttach = useCallback(async () => {

@@ -21,7 +21,7 @@ import { ViewButtons } from '@/components/editor/view-buttons';
 import { ToolButton } from '@/components/editor/tool-button';
 import { PinLayer } from '@/components/pins/pin-layer';
 import { PinPanel } from '@/components/pins/pin-panel';
-import { pickFile } from '@/components/pins/pick-file';
+import { pickFile, PIN_FILE_TYPES } from '@/components/pins/pick-file';
 import { useResponsive } from '@/components/layout/use-responsive';
 import { SheetDetail } from '@/components/projects/sheet-detail';
 import { useTheme } from '@/components/theme/use-theme';
@@ -59,7 +59,8 @@ export default function SheetScreen() {
     canModerate: !!role && role !== 'viewer',
     showPanel: () => a?.openPanel('pins'),
     initialPinNumber: params.pin ? Number(params.pin) : null,
-    pickFile: () => pickFile('image/png,image/jpeg,image/webp,image/gif,application/pdf,text/csv,.csv'),
+    pickFile: () => pickFile(PIN_FILE_TYPES),
+    visibleShare: isPhone ? 0.42 : 1,
   });
 
   const goBack = () => (sheet.data ? router.dismissTo(`/projects/${sheet.data.project.id}`) : router.replace('/'));
