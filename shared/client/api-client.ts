@@ -2,6 +2,8 @@
 // failure turned into an ApiError. Runs in the browser and in Node (give it a base URL and, in Node, headers).
 import type {
   ApiErrorBody,
+  PinAttachmentSummary,
+  PinThread,
   Health,
   ListMembersResponse,
   ListProjectsResponse,
@@ -77,30 +79,7 @@ export interface ViewLinkInfo {
   link: { expiresAt: string | null };
   you: { id: string; name: string; guest: boolean } | null;
 }
-export interface PinPerson {
-  id: string | null;
-  name: string;
-}
-export interface PinAttachmentSummary {
-  id: string;
-  fileName: string;
-  mediaType: string;
-  sizeBytes: number;
-}
-/** A pin with its thread, as the pin routes answer. */
-export interface PinThread {
-  id: string;
-  number: number;
-  elementId: string | null;
-  x: number;
-  y: number;
-  author: PinPerson;
-  body: string;
-  createdAt: string;
-  resolvedAt: string | null;
-  replies: { id: string; author: PinPerson; body: string; createdAt: string }[];
-  attachments: PinAttachmentSummary[];
-}
+export type { PinAttachmentSummary, PinPerson, PinThread } from '../api';
 export interface PinCreateBody {
   body: string;
   elementId?: string | null;
