@@ -60,6 +60,7 @@ export default function ViewLinkScreen() {
     me,
     canModerate: false,
     showPanel: () => a?.openPanel('pins'),
+    hidePanel: () => a?.closePanel(),
     pickFile: () => pickFile(PIN_FILE_TYPES),
     visibleShare: isPhone ? 0.42 : 1,
   });
@@ -225,10 +226,12 @@ export default function ViewLinkScreen() {
             onRedo={() => undefined}
             onResults={() => toggle('results')}
             extra={
-              <>
+              // A phone's bar has room for one: the pins panel, whose first button adds a pin.
+              isPhone ? (
+                <ToolButton icon="flag" label="Pins" active={ui.panel === 'pins' || pins.placing} onPress={() => (pins.placing ? pins.cancelPlacing() : toggle('pins'))} testID="tool-pins" />
+              ) : (
                 <ToolButton icon="flag" label="Pin" active={pins.placing} onPress={pins.placing ? pins.cancelPlacing : pins.startPin} testID="tool-pin" />
-                {isPhone ? <ToolButton icon="message-square" label="Pins" active={ui.panel === 'pins'} onPress={() => toggle('pins')} testID="tool-pins" /> : null}
-              </>
+              )
             }
           />
         }

@@ -23,6 +23,8 @@ export interface PinBoardOptions {
   canModerate: boolean;
   /** Shows the pin panel (the phone's sliding panel; on a wide screen it is always in the side pane). */
   showPanel: () => void;
+  /** Clears the canvas for the tap that places a pin (a phone's panel would cover it). */
+  hidePanel: () => void;
   /** A pin to open once the pins are read (?pin=3 in the e-mailed link). */
   initialPinNumber?: number | null;
   pickFile: () => Promise<File | null>;
@@ -110,6 +112,7 @@ export function usePinBoard(o: PinBoardOptions) {
     setPlacing(true);
     // A visitor gives a name first, in the panel; anyone else taps the canvas at once.
     if (!o.me) o.showPanel();
+    else if (o.visibleShare < 1) o.hidePanel();
   }, [o]);
 
   const placeAt = useCallback(

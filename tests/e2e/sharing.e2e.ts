@@ -99,6 +99,8 @@ async function run(browser: Browser, server: ServerProcess) {
   await seeTestId(editor.page, 'tool-undo'); // an editor's tools
   const editorTouch = await touchOf(editor);
   await renameOnPhone(editor, editorTouch, 'house-lights', 'House and porch lighting');
+  await seeTestId(editor.page, 'tool-pins');
+  await screenshot(editor.page, 'sharing-phone-editor');
 
   // The owner makes a viewer link for the farm sheet.
   await owner.page.goto(`${server.url}${projectPath}`);
@@ -133,7 +135,7 @@ async function run(browser: Browser, server: ServerProcess) {
   assert(lookLabel?.includes('Look'), `the visitor's first tool reads ${lookLabel}`);
   const caseLine = await (await seeTestId(visitor.page, 'editor-case')).textContent();
   assert(caseLine?.startsWith('View only'), `the visitor's case line reads ${caseLine}`);
-  await seeTestId(visitor.page, 'tool-pin');
+  await seeTestId(visitor.page, 'tool-pins');
   // It is live: the editor's next change reaches the visitor without a reload.
   await renameOnPhone(editor, editorTouch, 'office', 'Office and router');
   await seeElementNamed(visitor.page, 'office', 'Office and router');
@@ -144,12 +146,16 @@ async function run(browser: Browser, server: ServerProcess) {
   await wideVisitor.page.goto(linkUrl);
   await seeTestId(wideVisitor.page, 'editor-wide');
   await seeTestId(wideVisitor.page, 'pane-pins');
+  await seeTestId(wideVisitor.page, 'tool-pin');
   assert((await wideVisitor.page.getByTestId('palette').count()) === 0, 'the wide visitor should have no palette');
   await seeElementNamed(wideVisitor.page, 'office', 'Office and router');
   await screenshot(wideVisitor.page, 'sharing-wide-visitor-sheet');
 
   // To comment the visitor gives a name, then pins the water heater.
-  await el(visitor.page, 'tool-pin').click();
+  await el(visitor.page, 'tool-pins').click();
+  await seeTestId(visitor.page, 'panel-pins');
+  await seeText(visitor.page, 'No pins yet.');
+  await el(visitor.page, 'pin-add').click();
   await seeTestId(visitor.page, 'guest-name-form');
   await screenshot(visitor.page, 'sharing-phone-visitor-name');
   await el(visitor.page, 'guest-name-submit').click();
@@ -199,6 +205,16 @@ async function run(browser: Browser, server: ServerProcess) {
   // The reply reaches the visitor live too.
   await seeText(visitor.page, 'Circuit 7, the 30 A two-pole. I will relabel it.');
   await screenshot(visitor.page, 'sharing-phone-visitor-reply');
+  // The owner resolves the pin: the visitor's thread and flag say so without a reload.
+  await el(ownerSheet, 'pin-resolve').click();
+  await seeTestId(ownerSheet, 'pin-reopen');
+  await visitor.page
+    .waitForFunction(() => document.querySelector('[data-testid="pin-thread-state"]')?.textContent?.startsWith('Resolved') === true, undefined, { timeout: 15_000 })
+    .catch(() => {
+      throw new Error('the visitor does not see the pin resolved');
+    });
+  const flagLabel = await el(visitor.page, 'pin-flag-1').getAttribute('aria-label');
+  assert(flagLabel?.includes('resolved'), `the visitor's flag reads ${flagLabel}`);
 
   // The pin's e-mail to the owner is in the outbox, linking to the pin.
   const pinUrl = await linkFromOutbox(owner.page, server.url, 'owner@example.com', `/sheets/${farmId}?pin=1`, /Dale from the county added pin 1/);

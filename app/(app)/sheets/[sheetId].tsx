@@ -58,6 +58,7 @@ export default function SheetScreen() {
     me: user ? { id: user.id } : null,
     canModerate: !!role && role !== 'viewer',
     showPanel: () => a?.openPanel('pins'),
+    hidePanel: () => a?.closePanel(),
     initialPinNumber: params.pin ? Number(params.pin) : null,
     pickFile: () => pickFile(PIN_FILE_TYPES),
     visibleShare: isPhone ? 0.42 : 1,
@@ -210,10 +211,12 @@ export default function SheetScreen() {
             onRedo={a.redo}
             onResults={() => a.openPanel(ui.panel === 'results' ? 'none' : 'results')}
             extra={
-              <>
+              // A phone's bar has room for one: the pins panel, whose first button adds a pin.
+              isPhone ? (
+                <ToolButton icon="flag" label="Pins" active={ui.panel === 'pins' || pins.placing} onPress={() => (pins.placing ? pins.cancelPlacing() : a.openPanel(ui.panel === 'pins' ? 'none' : 'pins'))} testID="tool-pins" />
+              ) : (
                 <ToolButton icon="flag" label="Pin" active={pins.placing} onPress={pins.placing ? pins.cancelPlacing : pins.startPin} testID="tool-pin" />
-                {isPhone ? <ToolButton icon="message-square" label="Pins" active={ui.panel === 'pins'} onPress={() => a.openPanel(ui.panel === 'pins' ? 'none' : 'pins')} testID="tool-pins" /> : null}
-              </>
+              )
             }
           />
         }
