@@ -218,7 +218,22 @@ async function run(browser: Browser, server: ServerProcess) {
 
   // The pin's e-mail to the owner is in the outbox, linking to the pin.
   const pinUrl = await linkFromOutbox(owner.page, server.url, 'owner@example.com', `/sheets/${farmId}?pin=1`, /Dale from the county added pin 1/);
-  assert(pinUrl.includes('?pin=1'), `the pin e-mail links to ${pinUrl}`);
+  // Followed, it opens the sheet with that pin's thread on show.
+  await owner.page.goto(pinUrl);
+  await seeTestId(owner.page, 'pin-thread-1');
+
+  // A signed-in person who opens the link comments under their own name, with no name to give.
+  await editor.page.goto(linkUrl);
+  await seeTestId(editor.page, 'editor-phone');
+  await el(editor.page, 'editor-about').click();
+  const you = await (await seeTestId(editor.page, 'view-you')).textContent();
+  assert(you?.includes(invited.name), `the signed-in person's link page says: ${you}`);
+  await el(editor.page, 'panel-about-close').click();
+  await el(editor.page, 'tool-pins').click();
+  await el(editor.page, 'pin-add').click();
+  await seeTestId(editor.page, 'pin-placing-hint');
+  assert((await editor.page.getByTestId('guest-name-form').count()) === 0, 'a signed-in person should not be asked for a name');
+  await el(editor.page, 'pin-placing-cancel').click();
 
   // The owner revokes the link: the visitor's open page says so at once.
   await owner.page.goto(`${server.url}${projectPath}`);
