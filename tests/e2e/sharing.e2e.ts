@@ -186,6 +186,11 @@ async function run(browser: Browser, server: ServerProcess) {
   await seeText(visitor.page, 'readings.csv is not a photo, a PDF or a CSV file');
   await screenshot(visitor.page, 'sharing-phone-visitor-pinned');
 
+  // The other visitor, with no session at all, sees it arrive too, listed beside the drawing.
+  await seeTestId(wideVisitor.page, 'pin-flag-1');
+  await seeTestId(wideVisitor.page, 'pin-row-1');
+  await screenshot(wideVisitor.page, 'sharing-wide-visitor-pin-arrived');
+
   // The owner sees it arrive without a reload, by the water heater, and opens its thread.
   await seeTestId(ownerSheet, 'pin-flag-1');
   await seeTestId(ownerSheet, 'pin-row-1');
