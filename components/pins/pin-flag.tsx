@@ -24,7 +24,8 @@ export function PinFlag({ number, resolved, open }: PinFlagProps) {
   const w = flagWidth(number);
   const fill = resolved ? color.surface : color.focus;
   const edge = open ? color.primary : resolved ? color.inkMuted : scheme === 'dark' ? '#F1D9A8' : '#7A5210';
-  const ink = resolved ? color.inkMuted : '#FFFFFF';
+  // The dark theme's amber is light: dark figures on it, white on the light theme's deeper one.
+  const ink = resolved ? color.inkMuted : scheme === 'dark' ? '#1E1608' : '#FFFFFF';
   // The pennant: from the staff's top out to a notched tail and back.
   const d = `M 3 2 L ${w} 2 L ${w - 5} 10 L ${w} 18 L 3 18 Z`;
   return (
