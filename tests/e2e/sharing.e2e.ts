@@ -150,6 +150,16 @@ async function run(browser: Browser, server: ServerProcess) {
   assert((await wideVisitor.page.getByTestId('palette').count()) === 0, 'the wide visitor should have no palette');
   await seeElementNamed(wideVisitor.page, 'office', 'Office and router');
   await screenshot(wideVisitor.page, 'sharing-wide-visitor-sheet');
+  // The sheet's what-ifs can be looked at; showing one is this browser's own business.
+  await wideVisitor.page.locator('[data-testid^="case-"]:not([data-testid="case-list"])').filter({ hasText: 'Open neutral in the service drop' }).filter({ visible: true }).first().click();
+  await wideVisitor.page.waitForFunction(
+    () => document.querySelector('[data-testid="editor-case"]')?.textContent === 'View only · What-if: Open neutral in the service drop',
+    undefined,
+    { timeout: 15_000 },
+  );
+  const ownerCase = await el(ownerSheet, 'editor-case').textContent();
+  assert(ownerCase === 'Base case', `the owner's editor should still show the base case, it shows ${ownerCase}`);
+  await el(wideVisitor.page, 'case-base').click();
 
   // To comment the visitor gives a name, then pins the water heater.
   await el(visitor.page, 'tool-pins').click();
