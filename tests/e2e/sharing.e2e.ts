@@ -265,6 +265,9 @@ async function run(browser: Browser, server: ServerProcess) {
   await screenshot(visitor.page, 'sharing-phone-link-revoked');
   await seeTestId(wideVisitor.page, 'view-gone');
   await screenshot(wideVisitor.page, 'sharing-wide-link-revoked');
+  // The guest has no projects: the app's own pages send them to sign in.
+  await visitor.page.goto(`${server.url}/`);
+  await seeTestId(visitor.page, 'sign-in-screen');
   // Opened afresh, it says the same.
   const late = await newBrowserPage(browser, PHONE);
   await late.page.goto(linkUrl);
