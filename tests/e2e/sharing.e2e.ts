@@ -231,6 +231,24 @@ async function run(browser: Browser, server: ServerProcess) {
   const flagLabel = await el(visitor.page, 'pin-flag-1').getAttribute('aria-label');
   assert(flagLabel?.includes('resolved'), `the visitor's flag reads ${flagLabel}`);
 
+  // On a wide screen with a mouse, the owner pins an empty point of the sheet: the flag stands where they clicked.
+  await el(ownerSheet, 'tool-pin').click();
+  await seeTestId(ownerSheet, 'pin-placing-hint');
+  const layer = await el(ownerSheet, 'pin-target-layer').boundingBox();
+  assert(layer, 'the pin tool should cover the canvas');
+  const spot = { x: layer.x + layer.width * 0.8, y: layer.y + layer.height * 0.45 };
+  await ownerSheet.mouse.click(spot.x, spot.y);
+  await seeText(ownerSheet, 'New pin on the sheet');
+  await el(ownerSheet, 'pin-new-text').fill('Planned: a second barn circuit here.');
+  await el(ownerSheet, 'pin-new-send').click();
+  await seeTestId(ownerSheet, 'pin-thread-2');
+  const second = await (await seeTestId(ownerSheet, 'pin-flag-2')).boundingBox();
+  assert(second, 'the second flag should be drawn');
+  // The flag's staff stands on the point (its foot is near the bottom-left of the flag's button).
+  const foot = { x: second.x + 12, y: second.y + second.height - 8 };
+  assert(Math.hypot(foot.x - spot.x, foot.y - spot.y) < 16, `the flag's foot ${JSON.stringify(foot)} should be on the click ${JSON.stringify(spot)}`);
+  await seeTestId(wideVisitor.page, 'pin-row-2');
+
   // The pin's e-mail to the owner is in the outbox, linking to the pin.
   const pinUrl = await linkFromOutbox(owner.page, server.url, 'owner@example.com', `/sheets/${farmId}?pin=1`, /Dale from the county added pin 1/);
   // Followed, it opens the sheet with that pin's thread on show.
