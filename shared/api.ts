@@ -86,6 +86,32 @@ export interface ApiErrorBody {
   };
 }
 
+// Pins, as the pin routes answer (member and viewer-link routes alike).
+export interface PinPerson {
+  id: string | null;
+  name: string;
+}
+export interface PinAttachmentSummary {
+  id: string;
+  fileName: string;
+  mediaType: string;
+  sizeBytes: number;
+}
+/** A pin with its thread. */
+export interface PinThread {
+  id: string;
+  number: number;
+  elementId: string | null;
+  x: number;
+  y: number;
+  author: PinPerson;
+  body: string;
+  createdAt: string;
+  resolvedAt: string | null;
+  replies: { id: string; author: PinPerson; body: string; createdAt: string }[];
+  attachments: PinAttachmentSummary[];
+}
+
 // Responses, route by route.
 export interface ListProjectsResponse { projects: ProjectSummary[] }
 export interface ProjectResponse { project: ProjectSummary }

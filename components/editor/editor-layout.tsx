@@ -10,6 +10,8 @@ export interface EditorLayoutProps {
   isPhone: boolean;
   topBar: ReactNode;
   canvas: ReactNode;
+  /** Over the canvas, filling it, under everything else: the pins. */
+  canvasLayer?: ReactNode;
   /** Over the canvas, at its top: the legend and the cut chooser. */
   overlay: ReactNode;
   /** Over the canvas, in its top right corner: the view's own buttons. */
@@ -34,6 +36,7 @@ export function EditorLayout(p: EditorLayoutProps) {
   const stage = (
     <View style={styles.stage}>
       {p.canvas}
+      {p.canvasLayer}
       <View style={styles.overlay} pointerEvents="box-none">
         {p.overlay}
         <View style={styles.footnote} pointerEvents="none">

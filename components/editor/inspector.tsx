@@ -57,7 +57,7 @@ export function Inspector(p: InspectorProps) {
   if (s.kind === 'none') {
     return (
       <Text tone="muted" testID="inspector-empty">
-        Tap an element to see and change its data. Long-press to select several.
+        {p.editable ? 'Tap an element to see and change its data. Long-press to select several.' : 'Tap an element to see its data and try changes that are never saved.'}
       </Text>
     );
   }

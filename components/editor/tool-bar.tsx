@@ -1,5 +1,6 @@
 // The one bar of tools at the bottom, within the thumb's reach on a phone. A viewer's bar has no editing tools:
 // look, try a cut (in a trial that is never saved) and results.
+import type { ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import type { ToolName } from '@/editor/session/editor-state';
@@ -21,6 +22,8 @@ export interface ToolBarProps {
   onUndo: () => void;
   onRedo: () => void;
   onResults: () => void;
+  /** More buttons at the bar's end (the pin tool). */
+  extra?: ReactNode;
 }
 
 export function ToolBar(p: ToolBarProps) {
@@ -37,6 +40,7 @@ export function ToolBar(p: ToolBarProps) {
       {p.editable ? <ToolButton icon="corner-up-left" label="Undo" disabled={!p.canUndo} onPress={p.onUndo} testID="tool-undo" /> : null}
       {p.editable ? <ToolButton icon="corner-up-right" label="Redo" disabled={!p.canRedo} onPress={p.onRedo} testID="tool-redo" /> : null}
       {p.showResults ? <ToolButton icon="activity" label="Results" active={p.resultsOpen} onPress={p.onResults} testID="tool-results" /> : null}
+      {p.extra}
     </View>
   );
 }

@@ -17,7 +17,8 @@ export interface TopBarProps {
   status: ConnectionStatus;
   synced: boolean;
   compact: boolean;
-  onBack: () => void;
+  /** No back button without it (a viewer link's page has nowhere to go back to). */
+  onBack?: () => void;
   onCrew: () => void;
   onAbout: () => void;
 }
@@ -32,7 +33,7 @@ export function TopBar(p: TopBarProps) {
   return (
     <View testID="editor-top-bar" style={[styles.bar, { paddingTop: insets.top, backgroundColor: color.surface, borderBottomColor: color.line }]}>
       <View style={styles.row}>
-        <IconButton icon="chevron-left" label="Back to the project" onPress={p.onBack} testID="editor-back" />
+        {p.onBack ? <IconButton icon="chevron-left" label="Back to the project" onPress={p.onBack} testID="editor-back" /> : <View style={styles.edge} />}
         <View style={styles.titles}>
           <Text variant="bodyStrong" numberOfLines={1} testID="editor-sheet-name">
             {p.sheetName || 'Untitled sheet'}
@@ -82,6 +83,7 @@ const styles = StyleSheet.create({
   bar: { borderBottomWidth: 1 },
   row: { minHeight: 52, flexDirection: 'row', alignItems: 'center', paddingHorizontal: space.xs, gap: space.xs },
   titles: { flex: 1, minWidth: 0 },
+  edge: { width: space.sm },
   crew: { minHeight: touchTargetMin, flexDirection: 'row', alignItems: 'center', gap: 4, paddingHorizontal: space.sm, borderRadius: radius.md },
   statusDot: { width: 8, height: 8, borderRadius: 4, marginRight: 2 },
   initial: { width: 26, height: 26, borderRadius: 6, alignItems: 'center', justifyContent: 'center' },

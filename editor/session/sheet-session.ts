@@ -24,6 +24,8 @@ export interface SessionOptions {
   wsBase: string;
   editable: boolean;
   user: { id: string; name: string };
+  /** A viewer link's token: the socket is opened through the link (read-only, no membership needed). */
+  viewLink?: string;
   solveMode: SolveMode;
   workerUrl?: string;
 }
@@ -32,6 +34,8 @@ export interface LinkState {
   status: ConnectionStatus;
   /** The first full copy of the sheet has arrived. */
   synced: boolean;
+  /** The server closed the socket for good (4410: the viewer link was revoked or expired; 4403: access removed). */
+  ended: { code: number; reason: string } | null;
 }
 
 export class SheetSession {
@@ -42,7 +46,7 @@ export class SheetSession {
   readonly reader = new SheetReader();
   readonly ui = new Store<EditorUiState>(initialUiState());
   readonly results = new Store<ResultsState>(initialResults());
-  readonly link = new Store<LinkState>({ status: 'connecting', synced: false });
+  readonly link = new Store<LinkState>({ status: 'connecting', synced: false, ended: null });
   readonly crew = new Store<{ members: CrewMember[] }>({ members: [] });
   readonly history = new Store<{ canUndo: boolean; canRedo: boolean }>({ canUndo: false, canRedo: false });
   private provider: WebsocketProvider | null = null;
@@ -88,11 +92,17 @@ export class SheetSession {
   /** Opens the websocket to the sheet's room. */
   connect(): void {
     if (this.provider) return;
-    const provider = new WebsocketProvider(`${this.options.wsBase}/sync`, this.options.sheetId, this.doc, { disableBc: true, maxBackoffTime: 2500 });
+    const provider = new WebsocketProvider(`${this.options.wsBase}/sync`, this.options.sheetId, this.doc, {
+      disableBc: true,
+      maxBackoffTime: 2500,
+      params: this.options.viewLink ? { link: this.options.viewLink } : {},
+    });
     this.provider = provider;
     provider.on('status', ({ status }: { status: string }) =>
       this.link.set({ status: status === 'connected' ? 'connected' : status === 'connecting' ? 'connecting' : 'offline' }),
     );
+    // Close codes 4400-4499 are final: y-websocket stops reconnecting and reports them here.
+    provider.on('closed', ({ code, reason }: { code: number; reason: string }) => this.link.set({ status: 'offline', ended: { code, reason } }));
     provider.on('sync', (synced: boolean) => {
       if (!synced || this.link.get().synced) return;
       // A mark for the benchmark: the first full copy of the sheet is here.

@@ -24,7 +24,7 @@ import type { Rect } from '../../shared/symbols';
 const EMPTY = {
   ui: new Store(initialUiState()),
   results: new Store(initialResults()),
-  link: new Store<LinkState>({ status: 'connecting', synced: false }),
+  link: new Store<LinkState>({ status: 'connecting', synced: false, ended: null }),
   crew: new Store<{ members: CrewMember[] }>({ members: [] }),
   history: new Store({ canUndo: false, canRedo: false }),
   scene: new Store({ scene: buildScene({ elements: new Map(), connections: new Map() }) }),

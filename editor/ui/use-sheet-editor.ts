@@ -23,9 +23,11 @@ function solveModeFromUrl(): SolveMode {
   return v === 'worker' || v === 'main' ? v : 'auto';
 }
 
-export function useSheetEditor(options: { sheetId: string; editable: boolean; user: { id: string; name: string } } | null): EditorHandle | null {
+export function useSheetEditor(
+  options: { sheetId: string; editable: boolean; user: { id: string; name: string }; viewLink?: string } | null,
+): EditorHandle | null {
   const [handle, setHandle] = useState<EditorHandle | null>(null);
-  const key = options ? `${options.sheetId}|${options.editable}|${options.user.id}` : '';
+  const key = options ? `${options.sheetId}|${options.editable}|${options.user.id}|${options.viewLink ?? ''}` : '';
   useEffect(() => {
     if (!options) return;
     const http = resolveApiBaseUrl();
@@ -34,6 +36,7 @@ export function useSheetEditor(options: { sheetId: string; editable: boolean; us
       wsBase: http.replace(/^http/, 'ws'),
       editable: options.editable,
       user: options.user,
+      viewLink: options.viewLink,
       solveMode: solveModeFromUrl(),
       workerUrl: typeof Worker !== 'undefined' ? `${http}/solve-worker.js` : undefined,
     });

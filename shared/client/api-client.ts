@@ -2,6 +2,8 @@
 // failure turned into an ApiError. Runs in the browser and in Node (give it a base URL and, in Node, headers).
 import type {
   ApiErrorBody,
+  PinAttachmentSummary,
+  PinThread,
   Health,
   ListMembersResponse,
   ListProjectsResponse,
@@ -80,6 +82,26 @@ export interface ViewerLinkCreated {
 export interface Preferences {
   pinEmails: boolean;
 }
+/** What a viewer link opens, before the sheet's document: names, the link's expiry and who is asking. */
+export interface ViewLinkInfo {
+  sheet: { id: string; name: string };
+  project: { name: string };
+  link: { expiresAt: string | null };
+  you: { id: string; name: string; guest: boolean } | null;
+}
+export type { PinAttachmentSummary, PinPerson, PinThread } from '../api';
+export interface PinCreateBody {
+  body: string;
+  elementId?: string | null;
+  x: number;
+  y: number;
+}
+/** Where a sheet's pins are reached: as a member, or through a viewer link. */
+export type PinPlace = { sheetId: string } | { token: string };
+
+export function pinsPath(place: PinPlace): string {
+  return 'token' in place ? `/api/view/${encodeURIComponent(place.token)}/pins` : `/api/sheets/${encodeURIComponent(place.sheetId)}/pins`;
+}
 
 export type ApiErrorCode = ApiErrorBody['error']['code'] | 'network';
 export interface FieldIssue {
@@ -144,14 +166,16 @@ export function createApiClient(options: ApiClientOptions) {
 
   async function request<T>(method: string, path: string, body?: unknown): Promise<T> {
     const headers: Record<string, string> = { accept: 'application/json', ...options.headers };
-    if (body !== undefined) headers['content-type'] = 'application/json';
+    const form = typeof FormData !== 'undefined' && body instanceof FormData;
+    // A form sets its own multipart content type (with the boundary).
+    if (body !== undefined && !form) headers['content-type'] = 'application/json';
     let response: Response;
     try {
       response = await doFetch(`${baseUrl}${path}`, {
         method,
         headers,
         credentials: 'include',
-        body: body === undefined ? undefined : JSON.stringify(body),
+        body: body === undefined ? undefined : form ? (body as FormData) : JSON.stringify(body),
       });
     } catch (cause) {
       throw new ApiError(0, 'network', 'Cannot reach the server. Check the connection and try again.');
@@ -234,22 +258,32 @@ export function createApiClient(options: ApiClientOptions) {
     reviewRevision: (sheetId: string, number: number, body: ReviewCreateBody) =>
       request<{ review: ReviewSummary; revision: RevisionSummary }>('POST', `/api/sheets/${id(sheetId)}/revisions/${number}/reviews`, body),
     // Through a viewer link: look, compare and review (no account needed to look; a name to review).
-    getViewerLinkSheet: (token: string) =>
-      request<{ sheet: { id: string; name: string }; project: { name: string }; link: { expiresAt: string | null }; you: { id: string; name: string; guest: boolean } | null }>('GET', `/api/view/${id(token)}`),
     listLinkRevisions: (token: string) => request<ListRevisionsResponse>('GET', `/api/view/${id(token)}/revisions`),
     compareLinkRevision: (token: string, number: number) =>
       request<{ comparison: RevisionComparison }>('GET', `/api/view/${id(token)}/revisions/${number}/compare`),
     reviewLinkRevision: (token: string, number: number, body: ReviewCreateBody) =>
       request<{ review: ReviewSummary; revision: RevisionSummary }>('POST', `/api/view/${id(token)}/revisions/${number}/reviews`, body),
     linkRevisionExportUrl: (token: string, number: number, file: string) => `${baseUrl}/api/view/${id(token)}/revisions/${number}/export/${file}`,
-    /** A guest session with a name, so that someone holding a viewer link can review (better-auth's anonymous sign-in). */
-    signInAsGuest: async (name: string) => {
-      await request<unknown>('POST', '/api/auth/sign-in/anonymous', {});
-      await request<unknown>('POST', '/api/auth/update-user', { name });
-    },
     /** Where a download lives (opened by the browser, which sends the session cookie itself). */
     revisionExportUrl: (sheetId: string, number: number, file: string) => `${baseUrl}/api/sheets/${id(sheetId)}/revisions/${number}/export/${file}`,
     sheetExportUrl: (sheetId: string, file: string) => `${baseUrl}/api/sheets/${id(sheetId)}/export/${file}`,
+    getViewLink: (token: string) => request<ViewLinkInfo>('GET', `/api/view/${id(token)}`),
+
+    listPins: (place: PinPlace) => request<{ pins: PinThread[] }>('GET', pinsPath(place)),
+    addPin: (place: PinPlace, body: PinCreateBody) => request<{ pin: PinThread }>('POST', pinsPath(place), body),
+    replyToPin: (place: PinPlace, pinId: string, body: string) =>
+      request<{ pin: PinThread }>('POST', `${pinsPath(place)}/${id(pinId)}/replies`, { body }),
+    resolvePin: (place: PinPlace, pinId: string, resolved: boolean) =>
+      request<{ pin: PinThread }>('PATCH', `${pinsPath(place)}/${id(pinId)}`, { resolved }),
+    attachToPin: (place: PinPlace, pinId: string, file: Blob, fileName: string) => {
+      const form = new FormData();
+      form.append('file', file, fileName);
+      return request<{ attachment: PinAttachmentSummary }>('POST', `${pinsPath(place)}/${id(pinId)}/attachments`, form);
+    },
+    /** Where an attachment is read (an image's thumbnail, a file to open). */
+    attachmentUrl: (place: PinPlace, pinId: string, attachmentId: string) =>
+      `${baseUrl}${pinsPath(place)}/${id(pinId)}/attachments/${id(attachmentId)}`,
+    pinEventsUrl: (place: PinPlace) => `${baseUrl}${pinsPath(place)}/events`,
   };
 }
 

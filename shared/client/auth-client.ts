@@ -79,7 +79,12 @@ async function unwrap<T>(call: Promise<{ data: T | null; error: AuthFailure | nu
 }
 
 export const auth = {
-  getSession: async (): Promise<AuthSession | null> => (await unwrap(getAuthClient().getSession())) ?? null,
+  // A guest (a name given on a viewer link's page) counts as signed out everywhere but that page, which asks the
+  // link's own route who is there: guests have no projects, and may sign in or make an account like anyone.
+  getSession: async (): Promise<AuthSession | null> => {
+    const found = (await unwrap(getAuthClient().getSession())) ?? null;
+    return (found?.user as { isAnonymous?: boolean | null } | undefined)?.isAnonymous ? null : found;
+  },
   signIn: (body: { email: string; password: string }) => unwrap(getAuthClient().signIn.email(body)),
   signUp: (body: { name: string; email: string; password: string }) =>
     unwrap(getAuthClient().signUp.email(body)),
@@ -87,4 +92,10 @@ export const auth = {
   requestPasswordReset: (body: { email: string; redirectTo: string }) =>
     unwrap(getAuthClient().requestPasswordReset(body)),
   resetPassword: (body: { newPassword: string; token: string }) => unwrap(getAuthClient().resetPassword(body)),
+  /** A guest who opened a viewer link and gave a name: an anonymous account (better-auth's plugin), then the name. */
+  signInAsGuest: async (name: string) => {
+    const client = getAuthClient();
+    await unwrap(client.$fetch('/sign-in/anonymous', { method: 'POST', body: {} }) as Promise<{ data: unknown; error: AuthFailure | null }>);
+    await unwrap(client.updateUser({ name }));
+  },
 };

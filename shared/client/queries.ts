@@ -38,7 +38,6 @@ export const queryKeys = {
   revisions: (sheetId: string) => ['sheets', sheetId, 'revisions'] as const,
   revision: (sheetId: string, number: number) => ['sheets', sheetId, 'revisions', number] as const,
   comparison: (sheetId: string, number: number) => ['sheets', sheetId, 'revisions', number, 'compare'] as const,
-  linkSheet: (token: string) => ['view', token] as const,
   linkRevisions: (token: string) => ['view', token, 'revisions'] as const,
   linkComparison: (token: string, number: number) => ['view', token, 'revisions', number, 'compare'] as const,
 };
@@ -436,10 +435,6 @@ export function useReviewRevision(sheetId: string, number: number) {
 
 // Revisions through a viewer link.
 
-export function useLinkSheet(token: string) {
-  return useQuery({ queryKey: queryKeys.linkSheet(token), queryFn: () => getApiClient().getViewerLinkSheet(token), enabled: !!token, retry: false });
-}
-
 export function useLinkRevisions(token: string) {
   return useQuery({
     queryKey: queryKeys.linkRevisions(token),
@@ -463,13 +458,5 @@ export function useLinkReview(token: string, number: number) {
   return useMutation({
     mutationFn: (body: ReviewCreateBody) => getApiClient().reviewLinkRevision(token, number, body),
     onSuccess: () => client.invalidateQueries({ queryKey: queryKeys.linkRevisions(token) }),
-  });
-}
-
-export function useGuestName(token: string) {
-  const client = useQueryClient();
-  return useMutation({
-    mutationFn: (name: string) => getApiClient().signInAsGuest(name),
-    onSuccess: () => Promise.all([client.invalidateQueries({ queryKey: queryKeys.linkSheet(token) }), client.invalidateQueries({ queryKey: queryKeys.session })]),
   });
 }

@@ -5,7 +5,7 @@ import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
-import { chromium, type Browser, type Locator, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContext, type Locator, type Page } from 'playwright-core';
 
 export const root = path.resolve(__dirname, '..', '..');
 export const screenshotDir = path.join(__dirname, 'screenshots');
@@ -193,4 +193,117 @@ export async function screenshot(page: Page, name: string) {
   const file = path.join(screenshotDir, `${name}.png`);
   await page.screenshot({ path: file });
   log(`screenshot ${path.relative(root, file)}`);
+}
+
+// ----- What the app's browser tests share: demo sign-in, fresh browser contexts, and one start-up and teardown.
+
+export const DEMO_PASSWORD = 'larkspur-demo-2026';
+export const PHONE = { width: 390, height: 844 };
+export const WIDE = { width: 1440, height: 900 };
+
+// The page in use last, so that a failure can leave a picture of what the browser showed.
+let lastPage: Page | null = null;
+
+export interface OpenPage {
+  context: BrowserContext;
+  page: Page;
+  /** Page errors, console errors and server faults seen so far; a test fails on any. */
+  problems: string[];
+}
+
+/** A fresh browser context (no cookies: a different person) at a phone's or a wide screen's size. */
+export async function newBrowserPage(browser: Browser, viewport: { width: number; height: number }, options: { dark?: boolean } = {}): Promise<OpenPage> {
+  const context = await browser.newContext({
+    viewport,
+    colorScheme: options.dark ? 'dark' : 'light',
+    locale: 'en-GB',
+    timezoneId: 'UTC',
+    ...(viewport.width < 768 ? { isMobile: true, hasTouch: true, deviceScaleFactor: 2 } : {}),
+  });
+  const page = await context.newPage();
+  lastPage = page;
+  const problems: string[] = [];
+  page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
+  page.on('console', (message) => {
+    // Refused requests are judged by the tests themselves; other console errors are problems.
+    if (message.type() === 'error' && !message.text().startsWith('Failed to load resource')) problems.push(`console error: ${message.text()}`);
+  });
+  page.on('response', (response) => {
+    if (response.status() >= 500) problems.push(`${response.status()} for ${response.url()}`);
+  });
+  return { context, page, problems };
+}
+
+/** Signs in through the sign-in form and waits for the projects list. */
+export async function signInWithForm(page: Page, url: string, email: string, password = DEMO_PASSWORD) {
+  await page.goto(`${url}/sign-in`);
+  await seeTestId(page, 'sign-in-screen');
+  await el(page, 'email').fill(email);
+  await el(page, 'password').fill(password);
+  await el(page, 'sign-in-submit').click();
+  await seeTestId(page, 'projects-panel');
+}
+
+/** Opens the demo project from the projects list; returns its path (/projects/:id). */
+export async function openDemoProject(page: Page): Promise<string> {
+  await txt(page, 'Larkspur Row').click();
+  await seeTestId(page, 'project-detail');
+  await page.waitForURL(/\/projects\/[0-9a-f-]{36}$/);
+  return new URL(page.url()).pathname;
+}
+
+/** The first link to `hrefPart` in the newest e-mail to `to` on the outbox page (the local SMTP sink's mail). */
+export async function linkFromOutbox(page: Page, url: string, to: string, hrefPart: string, subject?: RegExp): Promise<string> {
+  await page.goto(`${url}/outbox`);
+  await seeTestId(page, 'outbox-screen');
+  let mail = page.getByTestId('outbox-message').filter({ hasText: `To ${to}` });
+  if (subject) mail = mail.filter({ hasText: subject });
+  await mail.first().waitFor({ state: 'visible', timeout: TIMEOUT_MS });
+  const href = await mail.first().locator(`a[href*="${hrefPart}"]`).first().getAttribute('href');
+  assert(href, `the e-mail to ${to} has no link to ${hrefPart}`);
+  return href;
+}
+
+/** Fails naming whose browser reported problems; closes every context. */
+export async function closeAll(pages: [string, OpenPage][]) {
+  for (const [who, p] of pages) {
+    assert(p.problems.length === 0, `the ${who}'s browser reported problems:\n${p.problems.join('\n')}`);
+    await p.context.close();
+  }
+}
+
+/**
+ * A browser test's whole life: a current web build, the server on a free port with a fresh data folder, Chromium;
+ * on failure a picture of the last page and the server's last lines; everything stopped at the end, and the
+ * process's exit code set.
+ */
+export function runBrowserTest(name: string, run: (browser: Browser, server: ServerProcess) => Promise<void>) {
+  const main = async () => {
+    ensureWebBuild();
+    let server: ServerProcess | null = null;
+    let browser: Browser | null = null;
+    try {
+      server = await startServer();
+      log(`server at ${server.url}`);
+      browser = await launchBrowser();
+      await run(browser, server);
+    } catch (error) {
+      if (lastPage && !lastPage.isClosed()) await screenshot(lastPage, `${name}-FAILED`).catch(() => undefined);
+      if (server) console.error(`[e2e] server output:\n${server.output.slice(-40).join('\n')}`);
+      throw error;
+    } finally {
+      await browser?.close().catch(() => undefined);
+      await server?.stop();
+    }
+  };
+  main().then(
+    () => {
+      log(`${name}: all checks passed`);
+      process.exit(0);
+    },
+    (error) => {
+      console.error(`[e2e] ${name} FAILED: ${error instanceof Error ? (error.stack ?? error.message) : error}`);
+      process.exit(1);
+    },
+  );
 }

@@ -6,59 +6,20 @@ import type { Browser, Page } from 'playwright-core';
 import {
   assert,
   byPrefix,
+  closeAll,
   el,
-  ensureWebBuild,
-  launchBrowser,
-  log,
+  linkFromOutbox,
+  newBrowserPage as newPage,
+  openDemoProject as openLarkspur,
+  PHONE,
+  runBrowserTest,
   screenshot,
   seeTestId,
   seeText,
-  startServer,
-  txt,
+  signInWithForm as signIn,
+  WIDE,
   type ServerProcess,
 } from './harness';
-
-const DEMO_PASSWORD = 'larkspur-demo-2026';
-const PHONE = { width: 390, height: 844 };
-const WIDE = { width: 1440, height: 900 };
-
-let currentPage: Page | null = null;
-
-async function newPage(browser: Browser, viewport: { width: number; height: number }) {
-  const context = await browser.newContext({
-    viewport,
-    locale: 'en-GB',
-    timezoneId: 'UTC',
-    ...(viewport.width < 768 ? { isMobile: true, hasTouch: true, deviceScaleFactor: 2 } : {}),
-  });
-  const page = await context.newPage();
-  currentPage = page;
-  const problems: string[] = [];
-  page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-  page.on('console', (message) => {
-    if (message.type() === 'error' && !message.text().startsWith('Failed to load resource')) problems.push(`console error: ${message.text()}`);
-  });
-  page.on('response', (response) => {
-    if (response.status() >= 500) problems.push(`${response.status()} for ${response.url()}`);
-  });
-  return { context, page, problems };
-}
-
-async function signIn(page: Page, url: string, email: string) {
-  await page.goto(`${url}/sign-in`);
-  await seeTestId(page, 'sign-in-screen');
-  await el(page, 'email').fill(email);
-  await el(page, 'password').fill(DEMO_PASSWORD);
-  await el(page, 'sign-in-submit').click();
-  await seeTestId(page, 'projects-panel');
-}
-
-async function openLarkspur(page: Page): Promise<string> {
-  await txt(page, 'Larkspur Row').click();
-  await seeTestId(page, 'project-detail');
-  await page.waitForURL(/\/projects\/[0-9a-f-]{36}$/);
-  return new URL(page.url()).pathname;
-}
 
 /** The radio of a member's (or the invite form's) role picker that is checked. */
 async function checkedRole(page: Page, pickerTestId: string): Promise<string | null> {
@@ -107,11 +68,7 @@ async function run(browser: Browser, server: ServerProcess) {
   await screenshot(owner.page, 'members-wide-owner-invited');
 
   // The e-mail, caught by the local sink, carries the link.
-  await owner.page.goto(`${server.url}/outbox`);
-  await seeTestId(owner.page, 'outbox-screen');
-  const mail = owner.page.getByTestId('outbox-message').filter({ hasText: `To ${invited.email}` }).first();
-  await mail.waitFor({ state: 'visible', timeout: 15_000 });
-  const inviteUrl = await mail.locator('a[href*="/invite/"]').first().getAttribute('href');
+  const inviteUrl = await linkFromOutbox(owner.page, server.url, invited.email, '/invite/');
   assert(inviteUrl && inviteUrl.startsWith(`${server.url}/invite/`), `the invitation mail links to ${inviteUrl}`);
 
   // A fresh browser on a phone: the invitation shows before sign-in, with the address filled in.
@@ -227,10 +184,7 @@ async function run(browser: Browser, server: ServerProcess) {
   await seeText(ownerPhone.page, 'Revoked');
   await screenshot(ownerPhone.page, 'members-phone-share');
 
-  for (const [who, p] of [['owner', owner], ['invited', guest], ['owner on a phone', ownerPhone]] as const) {
-    assert(p.problems.length === 0, `the ${who}'s browser reported problems:\n${p.problems.join('\n')}`);
-    await p.context.close();
-  }
+  await closeAll([['owner', owner], ['invited', guest], ['owner on a phone', ownerPhone]]);
 }
 
 async function notSeeAddress(page: Page, url: string) {
@@ -239,32 +193,4 @@ async function notSeeAddress(page: Page, url: string) {
   assert(shown === 0 && !inField, 'after Done the link address should not be shown again');
 }
 
-async function main() {
-  ensureWebBuild();
-  let server: ServerProcess | null = null;
-  let browser: Browser | null = null;
-  try {
-    server = await startServer();
-    log(`server at ${server.url}`);
-    browser = await launchBrowser();
-    await run(browser, server);
-  } catch (error) {
-    if (currentPage && !currentPage.isClosed()) await screenshot(currentPage, 'members-FAILED').catch(() => undefined);
-    if (server) console.error(`[e2e] server output:\n${server.output.slice(-40).join('\n')}`);
-    throw error;
-  } finally {
-    await browser?.close().catch(() => undefined);
-    await server?.stop();
-  }
-}
-
-main().then(
-  () => {
-    log('members: all checks passed');
-    process.exit(0);
-  },
-  (error) => {
-    console.error(`[e2e] members FAILED: ${error instanceof Error ? (error.stack ?? error.message) : error}`);
-    process.exit(1);
-  },
-);
+runBrowserTest('members', run);

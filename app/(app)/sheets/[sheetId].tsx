@@ -18,6 +18,10 @@ import { Toast } from '@/components/editor/toast';
 import { ToolBar } from '@/components/editor/tool-bar';
 import { TopBar } from '@/components/editor/top-bar';
 import { ViewButtons } from '@/components/editor/view-buttons';
+import { ToolButton } from '@/components/editor/tool-button';
+import { PinLayer } from '@/components/pins/pin-layer';
+import { PinPanel } from '@/components/pins/pin-panel';
+import { pickFile, PIN_FILE_TYPES } from '@/components/pins/pick-file';
 import { useResponsive } from '@/components/layout/use-responsive';
 import { SheetDetail } from '@/components/projects/sheet-detail';
 import { CoverPanel } from '@/components/schedule/cover-panel';
@@ -33,11 +37,12 @@ import { scheduleActions } from '@/editor/ui/schedule-actions';
 import { useScheduleView } from '@/editor/ui/use-schedule-view';
 import { MAX_CSV_BYTES } from '@/editor/schedule/schedule-csv';
 import { MAX_SHEET_JSON_BYTES } from '@/editor/import/sheet-import';
+import { usePinBoard } from '@/editor/ui/use-pin-board';
 import { isApiError } from '@/shared/client/api-client';
 import { useSession, useSheet } from '@/shared/client/queries';
 
 export default function SheetScreen() {
-  const params = useLocalSearchParams<{ sheetId: string }>();
+  const params = useLocalSearchParams<{ sheetId: string; pin?: string }>();
   const sheetId = String(params.sheetId ?? '');
   const router = useRouter();
   const { color, scheme } = useTheme();
@@ -54,6 +59,19 @@ export default function SheetScreen() {
   const a = handle?.actions;
   const sa = useMemo(() => (handle ? scheduleActions(handle.session) : null), [handle]);
   const scheduleView = useScheduleView(handle, view.snapshot, view.results.active ?? view.results.base, view.ui.scheduleBusId);
+  const pins = usePinBoard({
+    handle,
+    place: sheetId ? { sheetId } : null,
+    scene: view.scene,
+    nameOf: (id) => view.snapshot.elements.get(id)?.name || 'an element',
+    me: user ? { id: user.id } : null,
+    canModerate: !!role && role !== 'viewer',
+    showPanel: () => a?.openPanel('pins'),
+    hidePanel: () => a?.closePanel(),
+    initialPinNumber: params.pin ? Number(params.pin) : null,
+    pickFile: () => pickFile(PIN_FILE_TYPES),
+    visibleShare: isPhone ? 0.42 : 1,
+  });
 
   const goBack = () => (sheet.data ? router.dismissTo(`/projects/${sheet.data.project.id}`) : router.replace('/'));
 
@@ -141,12 +159,14 @@ export default function SheetScreen() {
   );
   const cautions = <Cautions caution={view.caution} assumptions={view.assumptions} standardLabel={view.standardLabel} />;
   const crew = <CrewList crew={view.crew} status={view.link.status} />;
+  const pinPanel = <PinPanel {...pins.panel} askName={false} naming={false} onGiveName={async () => undefined} />;
 
   const panels: Record<string, { title: string; body: ReactNode; testID: string } | null> = {
     none: null,
     palette: view.editable ? { title: 'Add an element', body: palette, testID: 'panel-palette' } : null,
     inspector: { title: view.inspector.kind === 'element' ? view.inspector.element.name || 'Element' : 'Details', body: inspector, testID: 'panel-inspector' },
     results: { title: 'Results', body: results, testID: 'panel-results' },
+    pins: { title: 'Pins', body: pinPanel, testID: 'panel-pins' },
     crew: { title: 'Crew', body: crew, testID: 'panel-crew' },
     about: { title: 'Sheet details', body: about, testID: 'panel-about' },
     cautions: { title: 'Cautions', body: cautions, testID: 'panel-cautions' },
@@ -200,6 +220,7 @@ export default function SheetScreen() {
             onSize={bindings.onSize}
           />
         }
+        canvasLayer={<PinLayer {...pins.layer} />}
         overlay={
           <>
             <Legend standardLabel={view.standardLabel} compact={isPhone} onCautions={() => a.openPanel('cautions')} />
@@ -229,6 +250,14 @@ export default function SheetScreen() {
             onUndo={a.undo}
             onRedo={a.redo}
             onResults={() => a.openPanel(ui.panel === 'results' ? 'none' : 'results')}
+            extra={
+              // A phone's bar has room for one: the pins panel, whose first button adds a pin.
+              isPhone ? (
+                <ToolButton icon="flag" label="Pins" active={ui.panel === 'pins' || pins.placing} onPress={() => (pins.placing ? pins.cancelPlacing() : a.openPanel(ui.panel === 'pins' ? 'none' : 'pins'))} testID="tool-pins" />
+              ) : (
+                <ToolButton icon="flag" label="Pin" active={pins.placing} onPress={pins.placing ? pins.cancelPlacing : pins.startPin} testID="tool-pin" />
+              )
+            }
           />
         }
         leftPane={view.editable ? <PaneSection title="Add an element">{palette}</PaneSection> : null}
@@ -239,6 +268,9 @@ export default function SheetScreen() {
                 {wideExtra.body}
               </PaneSection>
             ) : null}
+            <PaneSection title="Pins" testID="pane-pins">
+              {pinPanel}
+            </PaneSection>
             <PaneSection title="Inspector" testID="pane-inspector">
               {inspector}
             </PaneSection>

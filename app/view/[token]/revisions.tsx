@@ -13,15 +13,16 @@ import { errorMessage } from '@/components/ui/format';
 import { EmptyState, LoadingState } from '@/components/ui/states';
 import { Text } from '@/components/ui/text';
 import { isApiError } from '@/shared/client/api-client';
-import { getApiClient, useGuestName, useLinkComparison, useLinkReview, useLinkRevisions, useLinkSheet } from '@/shared/client/queries';
+import { getApiClient, useLinkComparison, useLinkReview, useLinkRevisions } from '@/shared/client/queries';
+import { useGuestSignIn, useViewLink } from '@/shared/client/pin-queries';
 
 export default function LinkRevisionsScreen() {
   const params = useLocalSearchParams<{ token: string; number?: string }>();
   const token = String(params.token ?? '');
   const { color } = useTheme();
-  const view = useLinkSheet(token);
+  const view = useViewLink(token);
   const revisions = useLinkRevisions(token);
-  const guestName = useGuestName(token);
+  const guestName = useGuestSignIn(token);
   const [chosen, setChosen] = useState<number | null>(params.number ? Number(params.number) || null : null);
   const [compareAsked, setCompareAsked] = useState<number | null>(null);
   const [needName, setNeedName] = useState(false);

@@ -1,21 +1,8 @@
 // Pins and their replies: numbered per sheet, read with their authors' names.
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
+import type { PinThread } from '../../../shared/api';
 import type { Database } from '../../../db/client';
 import { pin, pinAttachment, pinReply, projectMember, user, userPreference } from '../../../db/schema';
-
-export interface PinThread {
-  id: string;
-  number: number;
-  elementId: string | null;
-  x: number;
-  y: number;
-  author: { id: string | null; name: string };
-  body: string;
-  createdAt: string;
-  resolvedAt: string | null;
-  replies: { id: string; author: { id: string | null; name: string }; body: string; createdAt: string }[];
-  attachments: { id: string; fileName: string; mediaType: string; sizeBytes: number }[];
-}
 
 export async function listPins(db: Database, sheetId: string): Promise<PinThread[]> {
   const pins = await db
