@@ -49,7 +49,7 @@ function ElementSymbolView({ placed, palette, conductors, status, openConductors
   const label = placeText(element, symbol.label);
   const anchor = label.align;
   const detail = showLabel ? elementDetail(element) : '';
-  const stateWord = status && STATE_WORD[status.state];
+  const stateWord = status && (status.backFed ? `${status.backFed} BACK-FED` : STATE_WORD[status.state]);
   const name = element.name || element.id;
   // The state's badge sits clear of the symbol: above a bar's right end, else beside the body.
   const badge = element.kind === 'bus' ? { x: placed.body.x + placed.body.width - BADGE_WIDTH, y: placed.body.y - 18 } : { x: placed.body.x + placed.body.width + 6, y: placed.body.y + placed.body.height / 2 - 7 };
@@ -108,7 +108,8 @@ function ElementSymbolView({ placed, palette, conductors, status, openConductors
         </G>
       ) : null}
       {status?.ungrounded && !dead ? (
-        <Text x={label.x} y={label.y + (detail ? 28 : 14)} testID={`ungrounded-${element.id}`} fontSize={10} fontFamily={fontFamily.semibold} textAnchor={anchor} fill={palette.hazard}>
+        // Under the name and size, except on a bus, whose bar runs under its name: there it goes above.
+        <Text x={label.x} y={element.kind === 'bus' ? label.y - 14 : label.y + (detail ? 28 : 14)} testID={`ungrounded-${element.id}`} fontSize={10} fontFamily={fontFamily.semibold} textAnchor={anchor} fill={palette.hazard}>
           UNGROUNDED
         </Text>
       ) : null}
