@@ -105,7 +105,8 @@ export function ResultsPanel(p: ResultsPanelProps) {
       {/* First: it is what a tap on a bus asked for. */}
       {p.phasor ? (
         <Block title="Phasor diagram" testID="phasor-block" action={<IconButton icon="x" label="Close the phasor diagram" onPress={p.onClosePhasor} />}>
-          <PhasorDiagram busName={p.phasor.busName} view={p.phasor.view} convention={p.convention} />
+          {/* Small enough to show whole, figures included, in a phone's sliding panel. */}
+          <PhasorDiagram busName={p.phasor.busName} view={p.phasor.view} convention={p.convention} size={180} />
         </Block>
       ) : null}
       <Block

@@ -133,6 +133,16 @@ async function main() {
     assert(zoomed.zoom > whole.zoom * 2.5, `pinching in took the zoom from ${whole.zoom} to ${zoomed.zoom}`);
     await waitForTag(viewer.page, 'apt-4-lights:v', (x) => x > 110 && x < 126, 'the base-case voltage', 20_000);
     await screenshot(viewer.page, 'editor-results-phone-2-zoomed');
+    // On a phone a tapped bus offers its phasors; the diagram opens first in the results, in sight.
+    await viewer.touch.tap(toScreen(zoomed, { x: apt4.x + 60, y: apt4.y }));
+    await seeTestId(viewer.page, 'selection-peek');
+    await el(viewer.page, 'peek-phasors').click();
+    const phoneBox = await (await seeTestId(viewer.page, 'phasor-diagram')).boundingBox();
+    const barTop = (await el(viewer.page, 'tool-bar').boundingBox())!.y;
+    const panelTop = (await el(viewer.page, 'panel-results').boundingBox())!.y;
+    assert(phoneBox && phoneBox.y >= panelTop && phoneBox.y + phoneBox.height <= barTop, `on a phone the phasor diagram (${JSON.stringify(phoneBox)}) is not wholly in the panel above the tool bar at ${barTop} px`);
+    await screenshot(viewer.page, 'editor-results-phone-2b-phasor');
+    await el(viewer.page, 'panel-results-close').click();
     await el(viewer.page, 'tool-cut').click();
     const vv = await viewTransform(viewer.page);
     await viewer.touch.tap(toScreen(vv, { x: feeder.x, y: feeder.y }));
