@@ -288,8 +288,9 @@ async function drawingJourney(browser: Browser, server: ServerProcess, size: { w
   const cutDoc = await documentOf(o.api, sheetId);
   assert(cutDoc.elements[feederId].conductors.N.open === true, 'the cut did not reach the document');
 
-  // Undo the cut: the neutral closes and the voltages return.
+  // Undo the cut: the neutral closes and the voltages return, and the message says so.
   await el(o.page, 'tool-undo').click();
+  await o.page.waitForFunction(() => document.querySelector('[data-testid="editor-message"]')?.textContent === 'Undone', undefined, { timeout: 3000 });
   await waitForTag(o.page, `${ids['Load A']}:v`, (v) => v > 110 && v < 125, 'about 120 V again after undo');
   await screenshot(o.page, `editor-${label}-9-undone`);
 
