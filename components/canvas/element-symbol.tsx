@@ -39,6 +39,11 @@ function Lane({ lane, ink, open, baseInk, cut }: { lane: ConductorLane; ink: Con
   );
 }
 
+function FarLane({ lane, ink }: { lane: ConductorLane; ink: string }) {
+  const d = `M ${lane.fanIn.x} ${lane.fanIn.y} L ${lane.from.x} ${lane.from.y} L ${lane.to.x} ${lane.to.y} L ${lane.fanOut.x} ${lane.fanOut.y}`;
+  return <Path d={d} stroke={ink} strokeWidth={INK_WIDTH} fill="none" />;
+}
+
 function ElementSymbolView({ placed, palette, conductors, status, openConductors, error, showLabel }: ElementSymbolProps) {
   const { element, symbol } = placed;
   const turns = quarterTurns(element.rotationDeg);
@@ -66,7 +71,10 @@ function ElementSymbolView({ placed, palette, conductors, status, openConductors
           strokeLinecap="round"
           fill="none"
         />
-        {symbol.lanes.map((lane) => (
+        {/* Far out the lanes are under a pixel apart: one line stands for them all (a gap would read as open),
+            and only an open lane, with its cut mark, is drawn on its own. */}
+        {!showLabel && symbol.lanes.length ? <FarLane lane={symbol.lanes[Math.floor(symbol.lanes.length / 2)]} ink={ink} /> : null}
+        {(showLabel ? symbol.lanes : symbol.lanes.filter((l) => open.has(l.conductor))).map((lane) => (
           <Lane key={lane.conductor} lane={lane} ink={conductors[lane.conductor]} open={open.has(lane.conductor)} baseInk={ink} cut={palette.error} />
         ))}
         {symbol.glyph ? (
