@@ -39,6 +39,11 @@ function Lane({ lane, ink, open, baseInk, cut }: { lane: ConductorLane; ink: Con
   );
 }
 
+function FarLane({ lane, ink }: { lane: ConductorLane; ink: string }) {
+  const d = `M ${lane.fanIn.x} ${lane.fanIn.y} L ${lane.from.x} ${lane.from.y} L ${lane.to.x} ${lane.to.y} L ${lane.fanOut.x} ${lane.fanOut.y}`;
+  return <Path d={d} stroke={ink} strokeWidth={INK_WIDTH} fill="none" />;
+}
+
 function ElementSymbolView({ placed, palette, conductors, status, openConductors, error, showLabel }: ElementSymbolProps) {
   const { element, symbol } = placed;
   const turns = quarterTurns(element.rotationDeg);
@@ -49,7 +54,7 @@ function ElementSymbolView({ placed, palette, conductors, status, openConductors
   const label = placeText(element, symbol.label);
   const anchor = label.align;
   const detail = showLabel ? elementDetail(element) : '';
-  const stateWord = status && STATE_WORD[status.state];
+  const stateWord = status && (status.backFed ? `${status.backFed} BACK-FED` : STATE_WORD[status.state]);
   const name = element.name || element.id;
   // The state's badge sits clear of the symbol: above a bar's right end, else beside the body.
   const badge = element.kind === 'bus' ? { x: placed.body.x + placed.body.width - BADGE_WIDTH, y: placed.body.y - 18 } : { x: placed.body.x + placed.body.width + 6, y: placed.body.y + placed.body.height / 2 - 7 };
@@ -66,7 +71,10 @@ function ElementSymbolView({ placed, palette, conductors, status, openConductors
           strokeLinecap="round"
           fill="none"
         />
-        {symbol.lanes.map((lane) => (
+        {/* Far out the lanes are under a pixel apart: one line stands for them all (a gap would read as open),
+            and only an open lane, with its cut mark, is drawn on its own. */}
+        {!showLabel && symbol.lanes.length ? <FarLane lane={symbol.lanes[Math.floor(symbol.lanes.length / 2)]} ink={ink} /> : null}
+        {(showLabel ? symbol.lanes : symbol.lanes.filter((l) => open.has(l.conductor))).map((lane) => (
           <Lane key={lane.conductor} lane={lane} ink={conductors[lane.conductor]} open={open.has(lane.conductor)} baseInk={ink} cut={palette.error} />
         ))}
         {symbol.glyph ? (
@@ -108,7 +116,8 @@ function ElementSymbolView({ placed, palette, conductors, status, openConductors
         </G>
       ) : null}
       {status?.ungrounded && !dead ? (
-        <Text x={label.x} y={label.y + (detail ? 28 : 14)} testID={`ungrounded-${element.id}`} fontSize={10} fontFamily={fontFamily.semibold} textAnchor={anchor} fill={palette.hazard}>
+        // Under the name and size, except on a bus, whose bar runs under its name: there it goes above.
+        <Text x={label.x} y={element.kind === 'bus' ? label.y - 14 : label.y + (detail ? 28 : 14)} testID={`ungrounded-${element.id}`} fontSize={10} fontFamily={fontFamily.semibold} textAnchor={anchor} fill={palette.hazard}>
           UNGROUNDED
         </Text>
       ) : null}

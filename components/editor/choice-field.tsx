@@ -52,7 +52,12 @@ export function ChoiceField({ label, value, options, onChange, disabled, error, 
       <Text variant="label" tone="muted">
         {label}
       </Text>
-      {folded ? (
+      {disabled ? (
+        // Read only (a viewer): the value as plain text, not buttons that look pressable and do nothing.
+        <View style={[styles.readOnly, { borderColor: color.line }]} testID={testID ? `${testID}-value` : undefined}>
+          <Text>{current || '—'}</Text>
+        </View>
+      ) : folded ? (
         <>
           <Pressable
             disabled={disabled}
@@ -93,7 +98,7 @@ export function ToggleField({ label, value, onChange, disabled, hint, testID }: 
       accessibilityState={{ checked: value, disabled }}
       accessibilityLabel={label}
       testID={testID}
-      style={styles.toggle}
+      style={[styles.toggle, disabled && styles.dimmed]}
     >
       <View style={[styles.box, { borderColor: value ? color.primary : color.lineStrong, backgroundColor: value ? color.primary : color.surface }]}>
         {value ? <Icon name="check" size={16} color={color.onPrimary} /> : null}
@@ -119,4 +124,6 @@ const styles = StyleSheet.create({
   toggle: { minHeight: touchTargetMin, flexDirection: 'row', alignItems: 'center', gap: space.md },
   box: { width: 24, height: 24, borderRadius: 6, borderWidth: 1.5, alignItems: 'center', justifyContent: 'center' },
   toggleText: { flex: 1 },
+  readOnly: { minHeight: 40, borderBottomWidth: 1, justifyContent: 'center' },
+  dimmed: { opacity: 0.6 },
 });

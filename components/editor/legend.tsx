@@ -20,28 +20,30 @@ export function Legend({ standardLabel, compact, onCautions }: LegendProps) {
   const theme = useTheme();
   const looks = standingLook[theme.scheme];
   return (
-    <View testID="legend" style={[styles.box, { backgroundColor: theme.color.surface, borderColor: theme.color.line }]}>
+    <View testID="legend" style={[styles.box, compact && styles.compact, { backgroundColor: theme.color.surface, borderColor: theme.color.line }]}>
       <Text variant="caption" tone="muted" numberOfLines={2} testID="legend-standard" style={styles.standard}>
         {standardLabel ?? 'Voltage standard'}
       </Text>
       <View style={styles.keys}>
         {ORDER.map((s) => (
           <View key={s} style={styles.key}>
-            <Svg width={30} height={16}>
-              <Path d={tagOutline(s, 1, 1, 28, 14)} fill={looks[s].fill} stroke={looks[s].stroke} strokeWidth={tagStrokeWidth(s)} />
+            <Svg width={compact ? 24 : 30} height={16}>
+              <Path d={tagOutline(s, 1, 1, compact ? 22 : 28, 14)} fill={looks[s].fill} stroke={looks[s].stroke} strokeWidth={tagStrokeWidth(s)} />
             </Svg>
-            {!compact ? (
-              <Text variant="caption" tone="muted">
-                {looks[s].word}
-              </Text>
-            ) : null}
+            {/* A phone has room for one word each: a shape with no word means nothing to someone new. */}
+            <Text variant="caption" tone="muted">
+              {compact ? looks[s].word.split(' ')[0] : looks[s].word}
+            </Text>
           </View>
         ))}
         <Pressable onPress={onCautions} accessibilityRole="button" accessibilityLabel="Cautions" testID="open-cautions" style={styles.cautions} hitSlop={6}>
           <Icon name="alert-triangle" size={16} color={theme.color.focus} />
-          <Text variant="caption" tone="primary">
-            Cautions
-          </Text>
+          {/* On a phone the triangle alone (its label is spoken), so the key stays on one row. */}
+          {!compact ? (
+            <Text variant="caption" tone="primary">
+              Cautions
+            </Text>
+          ) : null}
         </Pressable>
       </View>
     </View>
@@ -50,6 +52,8 @@ export function Legend({ standardLabel, compact, onCautions }: LegendProps) {
 
 const styles = StyleSheet.create({
   box: { borderWidth: 1, borderRadius: radius.md, paddingHorizontal: space.sm, paddingTop: space.xs, maxWidth: 520 },
+  // Clear of the fit button in the canvas's top right corner.
+  compact: { marginRight: 56 },
   standard: { letterSpacing: 0 },
   keys: { flexDirection: 'row', alignItems: 'center', flexWrap: 'wrap', columnGap: space.sm },
   key: { flexDirection: 'row', alignItems: 'center', gap: 4 },

@@ -1,4 +1,5 @@
 // The elements a sheet is drawn with, each shown by its own symbol: choose one, then tap the sheet to place it.
+import { memo } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import Svg, { G, Path } from 'react-native-svg';
 import type { ElementKind } from '@/shared/sheet';
@@ -28,7 +29,7 @@ function SymbolPreview({ kind, ink }: { kind: ElementKind; ink: string }) {
   );
 }
 
-export function Palette({ chosen, onChoose, columns }: PaletteProps) {
+function PaletteView({ chosen, onChoose, columns }: PaletteProps) {
   const theme = useTheme();
   const ink = drawingPalette[theme.scheme].ink;
   return (
@@ -64,3 +65,6 @@ const styles = StyleSheet.create({
   half: { width: '48%' },
   label: { flex: 1 },
 });
+
+/** Unchanged on an edit of the sheet, so not redrawn by one. */
+export const Palette = memo(PaletteView);

@@ -1,7 +1,7 @@
 // Results beside the drawing: the case on show (base case, each what-if, a trial), how the solve went or where it
 // failed, hazards, each load's voltage, a bus's phasor diagram, and a what-if's differences from the base case
 // side by side.
-import type { ReactNode } from 'react';
+import { memo, type ReactNode } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { PhasorView } from '@/editor/results/phasor-view';
 import { formatAmperes, formatVolts, type TagStanding } from '@/editor/results/value-tags';
@@ -81,11 +81,34 @@ function Block({ title, children, testID, action }: { title: string; children: R
 const sign = (v: number, unit: 'V' | 'A') => `${v > 0 ? '+' : v < 0 ? '−' : ''}${unit === 'V' ? formatVolts(Math.abs(v)) : formatAmperes(Math.abs(v))}`;
 const figure = (v: number | null, unit: 'V' | 'A') => (v === null ? 'dead' : unit === 'V' ? formatVolts(v) : formatAmperes(v));
 
+// One row per load, redrawn only when its own figures change (an edit re-renders the panel, not every row).
+const LoadRow = memo(function LoadRow({ rowKey, name, label, volts, standing, looks }: { rowKey: string; name: string; label: string; volts: number; standing: TagStanding; looks: (typeof standingLook)['light'] }) {
+  return (
+    <View style={styles.tableRow} testID={`load-row-${rowKey}`}>
+      <Text variant="small" style={styles.colName} numberOfLines={2}>
+        {name} {label}
+      </Text>
+      <View style={[styles.pill, { backgroundColor: looks[standing].fill, borderColor: looks[standing].stroke }]}>
+        <Text variant="number" style={{ color: looks[standing].text }}>
+          {formatVolts(volts)} V
+        </Text>
+      </View>
+    </View>
+  );
+});
+
 export function ResultsPanel(p: ResultsPanelProps) {
   const theme = useTheme();
   const looks = standingLook[theme.scheme];
   return (
     <View style={styles.panel} testID="results-panel">
+      {/* First: it is what a tap on a bus asked for. */}
+      {p.phasor ? (
+        <Block title="Phasor diagram" testID="phasor-block" action={<IconButton icon="x" label="Close the phasor diagram" onPress={p.onClosePhasor} />}>
+          {/* Small enough to show whole, figures included, in a phone's sliding panel. */}
+          <PhasorDiagram busName={p.phasor.busName} view={p.phasor.view} convention={p.convention} size={180} />
+        </Block>
+      ) : null}
       <Block
         title="Case on show"
         testID="case-list"
@@ -178,12 +201,6 @@ export function ResultsPanel(p: ResultsPanelProps) {
         </Block>
       ) : null}
 
-      {p.phasor ? (
-        <Block title="Phasor diagram" testID="phasor-block" action={<IconButton icon="x" label="Close the phasor diagram" onPress={p.onClosePhasor} />}>
-          <PhasorDiagram busName={p.phasor.busName} view={p.phasor.view} convention={p.convention} />
-        </Block>
-      ) : null}
-
       {p.differences ? (
         <Block title="Against the base case" testID="differences">
           <View style={[styles.tableRow, styles.tableHead, { borderBottomColor: theme.color.line }]}>
@@ -225,18 +242,7 @@ export function ResultsPanel(p: ResultsPanelProps) {
             No live loads yet.
           </Text>
         ) : (
-          p.loads.map((l) => (
-            <View key={l.key} style={styles.tableRow} testID={`load-row-${l.key}`}>
-              <Text variant="small" style={styles.colName} numberOfLines={2}>
-                {l.name} {l.label}
-              </Text>
-              <View style={[styles.pill, { backgroundColor: looks[l.standing].fill, borderColor: looks[l.standing].stroke }]}>
-                <Text variant="number" style={{ color: looks[l.standing].text }}>
-                  {formatVolts(l.volts)} V
-                </Text>
-              </View>
-            </View>
-          ))
+          p.loads.map((l) => <LoadRow key={l.key} rowKey={l.key} name={l.name} label={l.label} volts={l.volts} standing={l.standing} looks={looks} />)
         )}
         {p.moreLoads > 0 ? (
           <Text variant="small" tone="muted">

@@ -42,6 +42,8 @@ export function TextField({ label, error, hint, ref, testID, onFocus, onBlur, mu
           noBrowserRing,
           multiline && styles.multiline,
           { color: color.ink, backgroundColor: color.surface, borderColor, borderWidth: focused || error ? 2 : 1 },
+          // Read only: no box that invites typing.
+          input.editable === false && { backgroundColor: 'transparent', borderWidth: 0, borderBottomWidth: 1, borderRadius: 0, paddingHorizontal: 0, borderColor: color.line },
         ]}
       />
       {error ? (

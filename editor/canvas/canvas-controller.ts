@@ -164,9 +164,13 @@ export class CanvasController {
       if (!world) return;
       world.style.willChange = 'auto';
       const raf = typeof requestAnimationFrame === 'function' ? requestAnimationFrame : (f: () => void) => setTimeout(f, 16);
-      raf(() => {
-        if (this.targets.world === world) world.style.willChange = 'transform';
-      });
+      // Two frames: the first callback runs before the frame that paints without the promotion, so restoring it
+      // there would leave the old raster in place.
+      raf(() =>
+        raf(() => {
+          if (this.targets.world === world) world.style.willChange = 'transform';
+        }),
+      );
     }, 300);
   }
 

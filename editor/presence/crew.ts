@@ -25,10 +25,33 @@ export interface CrewMember {
 /** Crew colours: distinct hues kept away from the status tints (green, amber, red) and the phase colours. */
 export const CREW_COLORS = ['#7A4FBF', '#C2477F', '#1E8A8A', '#C0601A', '#3558C0', '#6B7F1F'];
 
-export function crewColor(userId: string): string {
+function colorIndex(userId: string): number {
   let h = 2166136261;
   for (let i = 0; i < userId.length; i++) h = Math.imul(h ^ userId.charCodeAt(i), 16777619);
-  return CREW_COLORS[(h >>> 0) % CREW_COLORS.length];
+  return (h >>> 0) % CREW_COLORS.length;
+}
+
+export function crewColor(userId: string): string {
+  return CREW_COLORS[colorIndex(userId)];
+}
+
+/**
+ * Gives the people on the sheet different colours while there are colours enough: each keeps its own colour
+ * unless someone earlier (by user id) has it, then takes the next free one. It depends only on who is present,
+ * which every browser on the sheet sees alike, so a person has the same colour on every screen.
+ */
+export function distinctColors<T extends { userId: string; color: string }>(members: T[]): T[] {
+  const ids = [...new Set(members.map((m) => m.userId))].sort();
+  if (ids.length > CREW_COLORS.length) return members;
+  const taken = new Set<number>();
+  const chosen = new Map<string, string>();
+  for (const id of ids) {
+    let i = colorIndex(id);
+    while (taken.has(i)) i = (i + 1) % CREW_COLORS.length;
+    taken.add(i);
+    chosen.set(id, CREW_COLORS[i]);
+  }
+  return members.map((m) => (m.color === chosen.get(m.userId) ? m : { ...m, color: chosen.get(m.userId)! }));
 }
 
 const isPoint = (v: unknown): v is Point =>

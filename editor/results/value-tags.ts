@@ -36,6 +36,8 @@ export type DrawnState = 'energised' | 'back-fed' | 'de-energised' | 'partly-ene
 export interface ElementStatus {
   state: DrawnState;
   ungrounded: boolean;
+  /** A live bus with conductors live only through loads (a lost neutral): those conductors, "N". */
+  backFed?: string;
 }
 
 export interface DrawnResults {
@@ -147,11 +149,18 @@ function runTags(element: SheetElement, run: RunResult): ValueTag[] {
 
 // Statuses are shared objects (a handful of combinations), so a drawing that did not change state is not redrawn.
 const STATUSES = new Map<string, ElementStatus>();
-function statusOf(state: DrawnState, ungrounded: boolean): ElementStatus {
-  const key = `${state}|${ungrounded}`;
+function statusOf(state: DrawnState, ungrounded: boolean, backFed = ''): ElementStatus {
+  const key = `${state}|${ungrounded}|${backFed}`;
   let s = STATUSES.get(key);
-  if (!s) STATUSES.set(key, (s = { state, ungrounded }));
+  if (!s) STATUSES.set(key, (s = backFed ? { state, ungrounded, backFed } : { state, ungrounded }));
   return s;
+}
+
+/** A bus whose phases are live but some conductor is live only through loads is a hazard, drawn as back-fed. */
+function busStatus(bus: BusResult): ElementStatus {
+  const backFed = (Object.entries(bus.conductors) as [string, { state?: string } | undefined][]).filter(([, k]) => k?.state === 'back-fed').map(([c]) => c);
+  if (bus.state === 'energised' && backFed.length) return statusOf('back-fed', bus.ungrounded, backFed.join(' '));
+  return statusOf(bus.state, bus.ungrounded);
 }
 
 const sameTags = (a: ValueTag[], b: ValueTag[]) =>
@@ -193,7 +202,7 @@ export function drawnResults(sheet: Sheet, result: SolveResult): DrawnResults {
   for (const bus of result.buses) {
     const element = sheet.elements[bus.busId];
     if (!element) continue;
-    status.set(bus.busId, statusOf(bus.state, bus.ungrounded));
+    status.set(bus.busId, busStatus(bus));
     place(element, busTags(element, bus));
   }
   const landings = supplyLandings(sheet);

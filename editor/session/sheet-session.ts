@@ -10,7 +10,7 @@ import { createUndoManager } from '../document/undo';
 import { drawnResults, reuseUnchanged } from '../results/value-tags';
 import { SolveScheduler, type SolveInput, type SolveMode } from '../solve/solve-scheduler';
 import type { SolveReply } from '../solve/solve-request';
-import { crewList, crewColor, type CrewMember, type LocalPresence } from '../presence/crew';
+import { crewList, crewColor, distinctColors, type CrewMember, type LocalPresence } from '../presence/crew';
 import { initialUiState, type EditorUiState } from './editor-state';
 import { initialResults, type ResultsState } from './results-state';
 import { Store } from './store';
@@ -132,7 +132,7 @@ export class SheetSession {
     };
     if (!awareness) return [me];
     const others = crewList(awareness.getStates() as Map<number, Record<string, unknown>>, this.doc.clientID).filter((m) => !m.self);
-    return [me, ...others];
+    return distinctColors([me, ...others]);
   }
 
   /** Publishes part of this user's presence (cursor moves are sent at most every 50 ms). */

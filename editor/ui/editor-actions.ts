@@ -48,8 +48,17 @@ export function editorActions(session: SheetSession, canvas: CanvasController) {
       const id = commands.addElement(newElement(kind, { x: snap(c.x, GRID), y: snap(c.y, GRID) }, names));
       ui.set({ tool: 'select', placeKind: null, selection: new Set([id]), selectedConnection: null });
     },
-    undo: () => session.undo(),
-    redo: () => session.redo(),
+    // Said, so the last message ("Opened N of Feeder") does not stand over a drawing that no longer shows it.
+    undo() {
+      if (!editable() || !session.history.get().canUndo) return;
+      session.undo();
+      canvas.actions.say('Undone');
+    },
+    redo() {
+      if (!editable() || !session.history.get().canRedo) return;
+      session.redo();
+      canvas.actions.say('Redone');
+    },
     deleteSelection() {
       if (!editable()) return;
       const ids = selected();

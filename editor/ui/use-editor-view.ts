@@ -8,6 +8,7 @@ import type { ElementView } from '../document/sheet-mirror';
 import { fieldsFor } from '../inspector/fields';
 import { CAUTION } from '../results/cautions';
 import { describeChange } from '../results/describe-change';
+import { describeFailure } from '../results/describe-failure';
 import { differences } from '../results/differences';
 import { phasorView } from '../results/phasor-view';
 import type { EditorHandle } from './use-sheet-editor';
@@ -141,7 +142,15 @@ export function useEditorView(handle: EditorHandle | null) {
       shownChanges: shownWhatIf ? Object.entries(shownWhatIf.changes).map(([id, c]) => ({ id, text: describeChange(c, nameOf) })) : [],
       trial: ui.trialChanges.map((c) => describeChange(c, nameOf)),
       solve: { ms: results.solveMs, where: results.where, place: session?.solvePlace() ?? 'page' },
-      failure: results.failure ? { message: results.failure.message, elementIds: results.failure.elementIds } : null,
+      failure: results.failure
+        ? {
+            message: describeFailure(results.failure.message, results.failure.elementIds, {
+              element: (id) => snapshot.elements.get(id)?.name || undefined,
+              connection: (id) => snapshot.connections.get(id),
+            }),
+            elementIds: results.failure.elementIds,
+          }
+        : null,
       invalid: results.invalid.map((i) => `${nameOf(i.elementId ?? '')}: ${i.message}`),
       warnings: (shown?.warnings ?? []).slice(0, 20).map((w) => w.message),
       loads,

@@ -180,4 +180,14 @@ describe('the small 208Y/120 system against the hand calculation', () => {
     expect(drawn.openConductors.has('feeder|N')).toBe(true);
     expect(drawn.tags.get('la:v')!.standing).toBe('outside');
   });
+
+  it("marks the panel back-fed on its neutral when the neutral is open, and not when it is closed", () => {
+    // An open neutral leaves the panel's neutral bar live only through the loads from the phases (a shock
+    // hazard: common practice, no source); the phases themselves stay energised.
+    const open = drawnResults(read(true), solved(read(true)));
+    expect(open.status.get('panel')).toMatchObject({ state: 'back-fed', backFed: 'N' });
+    const closed = drawnResults(read(false), solved(read(false)));
+    expect(closed.status.get('panel')).toMatchObject({ state: 'energised' });
+    expect(closed.status.get('panel')!.backFed).toBeUndefined();
+  });
 });

@@ -11,8 +11,10 @@ import { EditorLayout } from '@/components/editor/editor-layout';
 import { Inspector } from '@/components/editor/inspector';
 import { Legend } from '@/components/editor/legend';
 import { Palette } from '@/components/editor/palette';
+import { PhasorDiagram } from '@/components/editor/phasor-diagram';
 import { ResultsPanel } from '@/components/editor/results-panel';
 import { SelectionPeek } from '@/components/editor/selection-peek';
+import { SolveFailureNote } from '@/components/editor/solve-failure-note';
 import { PaneSection, SlidingPanel } from '@/components/editor/sliding-panel';
 import { Toast } from '@/components/editor/toast';
 import { ToolBar } from '@/components/editor/tool-bar';
@@ -28,7 +30,7 @@ import { CoverPanel } from '@/components/schedule/cover-panel';
 import { SchedulePane } from '@/components/schedule/schedule-pane';
 import { SheetImportForm } from '@/components/schedule/sheet-import-form';
 import { useTheme } from '@/components/theme/use-theme';
-import { Button } from '@/components/ui/button';
+import { Button, IconButton } from '@/components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Text } from '@/components/ui/text';
 import { useCanvasBindings, useSheetEditor } from '@/editor/ui/use-sheet-editor';
@@ -112,9 +114,11 @@ export default function SheetScreen() {
       onOpenSchedule={sa.openSchedule}
     />
   );
+  // On a wide screen the phasor diagram has its own section at the top of the side pane, in sight of the tap.
   const results = (
     <ResultsPanel
       {...view.resultsPanel}
+      phasor={isPhone ? view.resultsPanel.phasor : null}
       editable={view.editable}
       convention={view.convention}
       onShowCase={a.showCase}
@@ -229,6 +233,7 @@ export default function SheetScreen() {
                 {view.editable ? 'An empty sheet: add a source, a panel and loads, then drag from a terminal to connect.' : 'Nothing is drawn on this sheet yet.'}
               </Text>
             ) : null}
+            {view.resultsPanel.failure ? <SolveFailureNote {...view.resultsPanel.failure} compact={!isPhone} onShowWhere={a.selectElements} /> : null}
             {ui.chooser ? (
               <CutChooser chooser={ui.chooser} title={view.chooserTitle} open={view.chooserOpen} convention={view.convention} onChoose={(w) => a.chooseCut(ui.chooser!, w)} onClose={a.closeChooser} />
             ) : null}
@@ -266,6 +271,11 @@ export default function SheetScreen() {
             {wideExtra ? (
               <PaneSection title={wideExtra.title} testID={wideExtra.testID} action={<Button label="Close" variant="quiet" compact onPress={a.closePanel} testID={`${wideExtra.testID}-close`} />}>
                 {wideExtra.body}
+              </PaneSection>
+            ) : null}
+            {view.resultsPanel.phasor ? (
+              <PaneSection title="Phasor diagram" testID="pane-phasor" action={<IconButton icon="x" label="Close the phasor diagram" onPress={() => a.showPhasor(null)} />}>
+                <PhasorDiagram busName={view.resultsPanel.phasor.busName} view={view.resultsPanel.phasor.view} convention={view.convention} />
               </PaneSection>
             ) : null}
             <PaneSection title="Pins" testID="pane-pins">
