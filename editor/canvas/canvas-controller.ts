@@ -17,8 +17,11 @@ export type ZoomBand = 'far' | 'mid' | 'near';
 /** The legend's height over the canvas, kept clear when the sheet is fitted into view. */
 const FIT_TOP_INSET = 110;
 
+/** The least zoom at which value tags are drawn (the 'mid' band): where a large sheet opens. */
+const READABLE_ZOOM = 0.35;
+
 export function zoomBand(zoom: number): ZoomBand {
-  return zoom < 0.35 ? 'far' : zoom < 0.7 ? 'mid' : 'near';
+  return zoom < READABLE_ZOOM ? 'far' : zoom < 0.7 ? 'mid' : 'near';
 }
 
 export interface ViewTargets {
@@ -86,7 +89,7 @@ export class CanvasController {
   private firstView() {
     if (this.fitted || this.size.width <= 0 || !this.session.link.get().synced) return;
     this.fitted = true;
-    if (this.base.elements.size > 0) this.fitAll();
+    if (this.base.elements.size > 0) this.openingView();
     else this.setViewport({ x: Math.round(this.size.width / 2), y: Math.round(Math.min(220, this.size.height * 0.3)), zoom: 1 });
   }
 
@@ -215,6 +218,20 @@ export class CanvasController {
     const pad = { x: b.x - 40, y: b.y - 40, width: b.width + 200, height: b.height + 110 };
     const vp = fitRect(this.scene.elements.size ? pad : { x: 0, y: 0, width: 0, height: 0 }, { width: this.size.width, height: this.size.height - top }, 24);
     this.setViewport({ ...vp, y: vp.y + top });
+  }
+
+  /**
+   * Opening a sheet: the whole of it when its values can still be read so; a large sheet opens instead at the
+   * smallest zoom that shows values, at its top (where the sources are), and Fit shows the whole of it.
+   */
+  private openingView() {
+    this.fitAll();
+    if (this.viewport.zoom >= READABLE_ZOOM) return;
+    const b = this.scene.bounds;
+    const sources = [...this.scene.elements.values()].filter((p) => p.element.kind === 'source');
+    const centreX = sources.length ? sources.reduce((sum, p) => sum + p.body.x + p.body.width / 2, 0) / sources.length : b.x + b.width / 2;
+    const top = Math.min(FIT_TOP_INSET, this.size.height / 4) + 24;
+    this.setViewport({ zoom: READABLE_ZOOM, x: this.size.width / 2 - centreX * READABLE_ZOOM, y: top - (b.y - 40) * READABLE_ZOOM });
   }
 
   /** Where a new element goes when placed from a button (the middle of the view). */

@@ -5,6 +5,7 @@
 // live; the owner revokes the link and the visitor's page says so. Pictures at 390x844 and 1440x900 (sharing-*).
 import type { Browser, Page } from 'playwright-core';
 import { Touch } from './editor-support';
+import { DEMO_SHEETS } from '../../db/seed';
 import {
   assert,
   closeAll,
@@ -24,6 +25,10 @@ import {
 } from './harness';
 
 const FARM = 'Farm service, 120/240 V';
+// The demo seed may already have pinned the farm sheet: this test's pins follow those.
+const SEEDED_PINS = DEMO_SHEETS.find((s) => s.name === FARM)?.pins.length ?? 0;
+const FIRST = SEEDED_PINS + 1;
+const PINS_AT_START = SEEDED_PINS === 0 ? 'No pins yet.' : `${SEEDED_PINS} open pin${SEEDED_PINS === 1 ? '' : 's'}, 0 resolved`;
 
 async function touchOf(p: OpenPage): Promise<Touch> {
   return new Touch(await p.context.newCDPSession(p.page), p.page);
@@ -121,7 +126,7 @@ async function run(browser: Browser, server: ServerProcess) {
   await ownerSheet.goto(`${server.url}/sheets/${farmId}`);
   await seeTestId(ownerSheet, 'editor-wide');
   await seeElementNamed(ownerSheet, 'house-lights', 'House and porch lighting');
-  await seeText(ownerSheet, 'No pins yet.');
+  await seeText(ownerSheet, PINS_AT_START);
 
   // A fresh browser with no account opens the link on a phone: the sheet, read-only, no editing tools.
   const visitor = await newBrowserPage(browser, PHONE);
@@ -164,7 +169,7 @@ async function run(browser: Browser, server: ServerProcess) {
   // To comment the visitor gives a name, then pins the water heater.
   await el(visitor.page, 'tool-pins').click();
   await seeTestId(visitor.page, 'panel-pins');
-  await seeText(visitor.page, 'No pins yet.');
+  await seeText(visitor.page, PINS_AT_START);
   await el(visitor.page, 'pin-add').click();
   await seeTestId(visitor.page, 'guest-name-form');
   await screenshot(visitor.page, 'sharing-phone-visitor-name');
@@ -179,9 +184,9 @@ async function run(browser: Browser, server: ServerProcess) {
   await seeText(visitor.page, 'New pin on Water heater');
   await el(visitor.page, 'pin-new-text').fill('The heater’s breaker label is faded; which circuit feeds it?');
   await el(visitor.page, 'pin-new-send').click();
-  await seeTestId(visitor.page, 'pin-thread-1');
+  await seeTestId(visitor.page, `pin-thread-${FIRST}`);
   await seeText(visitor.page, 'Dale from the county');
-  await seeTestId(visitor.page, 'pin-flag-1');
+  await seeTestId(visitor.page, `pin-flag-${FIRST}`);
   // A photo goes with it (a picture of the drawing will do), shown as a thumbnail; a file that is not what its
   // name says is refused, saying why.
   const photo = await visitor.page.locator('[data-testid="sheet-canvas"]').first().screenshot();
@@ -197,21 +202,21 @@ async function run(browser: Browser, server: ServerProcess) {
   await screenshot(visitor.page, 'sharing-phone-visitor-pinned');
 
   // The other visitor, with no session at all, sees it arrive too, listed beside the drawing.
-  await seeTestId(wideVisitor.page, 'pin-flag-1');
-  await seeTestId(wideVisitor.page, 'pin-row-1');
+  await seeTestId(wideVisitor.page, `pin-flag-${FIRST}`);
+  await seeTestId(wideVisitor.page, `pin-row-${FIRST}`);
   await screenshot(wideVisitor.page, 'sharing-wide-visitor-pin-arrived');
 
   // The owner sees it arrive without a reload, by the water heater, and opens its thread.
-  await seeTestId(ownerSheet, 'pin-flag-1');
-  await seeTestId(ownerSheet, 'pin-row-1');
-  const flag = await el(ownerSheet, 'pin-flag-1').boundingBox();
+  await seeTestId(ownerSheet, `pin-flag-${FIRST}`);
+  await seeTestId(ownerSheet, `pin-row-${FIRST}`);
+  const flag = await el(ownerSheet, `pin-flag-${FIRST}`).boundingBox();
   const heater = await ownerSheet.locator('[data-testid="sym-water-heater"]').first().boundingBox();
   assert(flag && heater, 'the pin flag and the water heater should both be drawn for the owner');
   const near = Math.abs(flag.x + flag.width / 2 - (heater.x + heater.width)) < 60 && Math.abs(flag.y + flag.height - heater.y) < 60;
   assert(near, `the pin flag (${JSON.stringify(flag)}) should stand on the water heater (${JSON.stringify(heater)})`);
-  await el(ownerSheet, 'pin-flag-1').click();
-  await seeTestId(ownerSheet, 'pin-thread-1');
-  await seeText(ownerSheet, 'Pin 1 on Water heater');
+  await el(ownerSheet, `pin-flag-${FIRST}`).click();
+  await seeTestId(ownerSheet, `pin-thread-${FIRST}`);
+  await seeText(ownerSheet, `Pin ${FIRST} on Water heater`);
   await seeTestId(ownerSheet, 'pin-attachment-heater-label.png');
   await el(ownerSheet, 'pin-reply-text').fill('Circuit 7, the 30 A two-pole. I will relabel it.');
   await el(ownerSheet, 'pin-reply-send').click();
@@ -228,7 +233,7 @@ async function run(browser: Browser, server: ServerProcess) {
     .catch(() => {
       throw new Error('the visitor does not see the pin resolved');
     });
-  const flagLabel = await el(visitor.page, 'pin-flag-1').getAttribute('aria-label');
+  const flagLabel = await el(visitor.page, `pin-flag-${FIRST}`).getAttribute('aria-label');
   assert(flagLabel?.includes('resolved'), `the visitor's flag reads ${flagLabel}`);
 
   // On a wide screen with a mouse, the owner pins an empty point of the sheet: the flag stands where they clicked.
@@ -241,19 +246,19 @@ async function run(browser: Browser, server: ServerProcess) {
   await seeText(ownerSheet, 'New pin on the sheet');
   await el(ownerSheet, 'pin-new-text').fill('Planned: a second barn circuit here.');
   await el(ownerSheet, 'pin-new-send').click();
-  await seeTestId(ownerSheet, 'pin-thread-2');
-  const second = await (await seeTestId(ownerSheet, 'pin-flag-2')).boundingBox();
+  await seeTestId(ownerSheet, `pin-thread-${FIRST + 1}`);
+  const second = await (await seeTestId(ownerSheet, `pin-flag-${FIRST + 1}`)).boundingBox();
   assert(second, 'the second flag should be drawn');
   // The flag's staff stands on the point (its foot is near the bottom-left of the flag's button).
   const foot = { x: second.x + 12, y: second.y + second.height - 8 };
   assert(Math.hypot(foot.x - spot.x, foot.y - spot.y) < 16, `the flag's foot ${JSON.stringify(foot)} should be on the click ${JSON.stringify(spot)}`);
-  await seeTestId(wideVisitor.page, 'pin-row-2');
+  await seeTestId(wideVisitor.page, `pin-row-${FIRST + 1}`);
 
   // The pin's e-mail to the owner is in the outbox, linking to the pin.
-  const pinUrl = await linkFromOutbox(owner.page, server.url, 'owner@example.com', `/sheets/${farmId}?pin=1`, /Dale from the county added pin 1/);
+  const pinUrl = await linkFromOutbox(owner.page, server.url, 'owner@example.com', `/sheets/${farmId}?pin=${FIRST}`, new RegExp(`Dale from the county added pin ${FIRST}`));
   // Followed, it opens the sheet with that pin's thread on show.
   await owner.page.goto(pinUrl);
-  await seeTestId(owner.page, 'pin-thread-1');
+  await seeTestId(owner.page, `pin-thread-${FIRST}`);
 
   // A signed-in person who opens the link comments under their own name, with no name to give.
   await editor.page.goto(linkUrl);
