@@ -36,6 +36,11 @@ interface Pending {
 }
 
 export interface RoomOptions {
+  /**
+   * Compaction waits for at least this many updates since the snapshot, and for them to weigh at least as much as
+   * the snapshot itself: each compaction re-encodes and rewrites the whole document, so tying it to the bytes
+   * appended keeps its cost in proportion to the edits (a busy sheet would otherwise rewrite itself many times a second).
+   */
   compactEvery?: number;
   log?: (line: string) => void;
   /** Brings a freshly loaded document up to the current format (runs as a server-side transaction when it changes). */
@@ -54,6 +59,8 @@ export class Room {
   private lastEdit: { userId: string | null; at: Date } | null = null;
   private lastTouchMs = 0;
   private sinceCompaction = 0;
+  private bytesSinceCompaction = 0;
+  private snapshotBytes = 0;
   private readonly compactEvery: number;
   private readonly log: (line: string) => void;
 
@@ -85,6 +92,8 @@ export class Room {
     );
     room.lastSeq = stored.lastSeq;
     room.sinceCompaction = stored.updates.length;
+    room.bytesSinceCompaction = stored.updates.reduce((n, u) => n + u.byteLength, 0);
+    room.snapshotBytes = stored.snapshot?.byteLength ?? 0;
     const migrate = options.upgrade?.(room.doc);
     if (migrate) await room.transact(migrate, null);
     return room;
@@ -179,8 +188,19 @@ export class Room {
     await this.flushed();
     await this.touch();
     if (this.sinceCompaction === 0) return;
-    await this.store.compact(this.sheetId, Y.encodeStateAsUpdate(this.doc), this.lastSeq);
+    await this.writeSnapshot();
+  }
+
+  private async writeSnapshot(): Promise<void> {
+    const state = Y.encodeStateAsUpdate(this.doc);
+    await this.store.compact(this.sheetId, state, this.lastSeq);
     this.sinceCompaction = 0;
+    this.bytesSinceCompaction = 0;
+    this.snapshotBytes = state.byteLength;
+  }
+
+  private compactionDue(): boolean {
+    return this.sinceCompaction >= this.compactEvery && this.bytesSinceCompaction >= this.snapshotBytes;
   }
 
   private async touch(): Promise<void> {
@@ -230,6 +250,9 @@ export class Room {
   // Stores queued updates a batch at a time: updates arriving during a write wait and go in the next one.
   private async flushLoop(): Promise<void> {
     try {
+      // The first batch waits one turn of the event loop, so that the messages already read from other sockets
+      // in this turn (a burst) join it: one write and one relay instead of one per message.
+      await new Promise((resolve) => setImmediate(resolve));
       while (this.pending.length > 0) {
         const batch = this.pending.splice(0);
         try {
@@ -243,14 +266,16 @@ export class Room {
           continue;
         }
         this.sinceCompaction += batch.length;
+        for (const item of batch) this.bytesSinceCompaction += item.update.byteLength;
         for (const item of batch) Y.applyUpdate(this.doc, item.update, item.origin);
         this.relay(batch);
         for (const item of batch) item.settle?.();
         this.lastEdit = { userId: batch.findLast((b) => b.userId)?.userId ?? this.lastEdit?.userId ?? null, at: new Date() };
-        if (Date.now() - this.lastTouchMs >= TOUCH_EVERY_MS) await this.touch();
-        if (this.sinceCompaction >= this.compactEvery) {
-          await this.store.compact(this.sheetId, Y.encodeStateAsUpdate(this.doc), this.lastSeq);
-          this.sinceCompaction = 0;
+        // The metadata touch is not waited for: it is grouped and ordered by the store and guards nothing relayed.
+        if (Date.now() - this.lastTouchMs >= TOUCH_EVERY_MS) void this.touch();
+        // Compaction holds up the next batch, so it waits for a lull (nothing queued) unless far overdue.
+        if (this.compactionDue() && (this.pending.length === 0 || this.sinceCompaction >= 4 * this.compactEvery)) {
+          await this.writeSnapshot().catch((err) => this.log(`sync ${this.sheetId}: compaction failed: ${String(err)}`));
         }
       }
     } finally {
