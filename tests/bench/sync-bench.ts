@@ -96,6 +96,8 @@ async function scenario(http: TestClient, projectId: string, serverPid: number, 
       clientCpuPercent: percentOf((cpu.user + cpu.system) / 1000),
       busiestWorkerCpuPercent: Math.max(...results.map((r) => percentOf(r.cpuMs))),
       serverCpuPercent: percentOf(serverCpuMs),
+      serverCpuMs,
+      clientCpuMs: (cpu.user + cpu.system) / 1000,
       expected,
       received,
       lost: expected - received,
@@ -147,7 +149,7 @@ async function main() {
     );
     console.log(`uptime: ${execSync('uptime').toString().trim()}  (${os.cpus().length} cores)`);
     console.log(
-      'scenario                 | deliveries | lost | p50 ms | p95 ms | p99 ms | server RSS MB | server CPU % | clients CPU % (busiest worker) | load 1/5/15 min',
+      'scenario                 | deliveries | lost | p50 ms | p95 ms | p99 ms | server RSS MB | server CPU s (%) | clients CPU s (%, workers, busiest %) | load 1/5/15 min',
     );
     const only = process.env.BENCH_ONLY; // e.g. "1x20" to run one scenario while profiling
     for (const [sheets, per] of [[1, 2], [1, 20], [1, 100], [100, 2]] as const) {
@@ -156,7 +158,7 @@ async function main() {
         const r = await scenario(http, projectId, server.child.pid!, sheets, per);
         const label = sheets === 1 ? `${per} clients on one sheet` : `${sheets} sheets x ${per} clients`;
         console.log(
-          `${label.padEnd(24)} | ${String(r.received).padStart(10)} | ${String(r.lost).padStart(4)} | ${r.p50.toFixed(1).padStart(6)} | ${r.p95.toFixed(1).padStart(6)} | ${r.p99.toFixed(1).padStart(6)} | ${rssMb(server.child.pid!).toFixed(0).padStart(13)} | ${r.serverCpuPercent.toFixed(0).padStart(12)} | ${`${r.clientCpuPercent.toFixed(0)} in ${r.workerCount} (${r.busiestWorkerCpuPercent.toFixed(0)})`.padStart(30)} | ${loadAverage()}`,
+          `${label.padEnd(24)} | ${String(r.received).padStart(10)} | ${String(r.lost).padStart(4)} | ${r.p50.toFixed(1).padStart(6)} | ${r.p95.toFixed(1).padStart(6)} | ${r.p99.toFixed(1).padStart(6)} | ${rssMb(server.child.pid!).toFixed(0).padStart(13)} | ${`${(r.serverCpuMs / 1000).toFixed(2)} (${r.serverCpuPercent.toFixed(0)})`.padStart(16)} | ${`${(r.clientCpuMs / 1000).toFixed(2)} (${r.clientCpuPercent.toFixed(0)}, ${r.workerCount}, ${r.busiestWorkerCpuPercent.toFixed(0)})`.padStart(37)} | ${loadAverage()}`,
         );
         // With a server profile, this window (CLOCK_MONOTONIC ms, the clock of V8's profile timestamps) picks the scenario out of it.
         if (nodeArgs.length > 0) console.log(`  window ${r.window.startMs.toFixed(0)}..${r.window.endMs.toFixed(0)} ms`);
@@ -165,7 +167,8 @@ async function main() {
     const large = await loadLargeSheet(http, projectId, 2000);
     console.log(`2,000-element sheet: import ${large.importMs.toFixed(0)} ms; cold load and first sync ${large.loadMs.toFixed(0)} ms (${large.count} elements)`);
     console.log('Targets: p95 < 50 ms at 20 clients, < 200 ms at 100 clients, 0 lost.');
-    console.log('CPU % is of one core over the scenario (100 = one core busy). A busiest worker near 100 % means the clients, not the server, set the latency.');
+    console.log('CPU s is CPU time used during the scenario (from the start of the edits until every worker has everything or gives up); % is of one core over that time.');
+    console.log('A busiest worker near 100 % means the clients, not the server, set the latency; load far above the core count means the scheduler does.');
     console.log(`uptime: ${execSync('uptime').toString().trim()}`);
   } finally {
     await server.kill('SIGTERM');
