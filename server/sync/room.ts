@@ -17,6 +17,9 @@ export const MESSAGE_SYNC = 0;
 export const MESSAGE_AWARENESS = 1;
 export const MESSAGE_QUERY_AWARENESS = 3;
 const TOUCH_EVERY_MS = 2000;
+// Awareness changes (cursors, selections, arrivals) are gathered and sent at most this often, as one message to
+// each peer: relayed one by one, every peer's every cursor move would cost a send to every other peer.
+const AWARENESS_EVERY_MS = 40;
 
 export interface Peer {
   user: { id: string; name: string };
@@ -55,6 +58,8 @@ export class Room {
   private flushing: Promise<void> | null = null;
   private waiters: (() => void)[] = [];
   private lastSeq = 0;
+  private awarenessChanged = new Set<number>();
+  private awarenessTimer: ReturnType<typeof setTimeout> | null = null;
   // Who edited last and when, written to the sheet's metadata at most every TOUCH_EVERY_MS and on compaction.
   private lastEdit: { userId: string | null; at: Date } | null = null;
   private lastTouchMs = 0;
@@ -73,9 +78,8 @@ export class Room {
     this.log = options.log ?? (() => {});
     this.awareness.setLocalState(null);
     this.awareness.on('update', ({ added, updated, removed }: Record<string, number[]>) => {
-      const changed = [...added, ...updated, ...removed];
-      const payload = awarenessProtocol.encodeAwarenessUpdate(this.awareness, changed);
-      this.broadcast(awarenessMessage(payload), null);
+      for (const id of [...added, ...updated, ...removed]) this.awarenessChanged.add(id);
+      this.awarenessTimer ??= setTimeout(() => this.sendAwareness(), AWARENESS_EVERY_MS);
     });
   }
 
@@ -233,8 +237,17 @@ export class Room {
   }
 
   destroy(): void {
+    if (this.awarenessTimer) clearTimeout(this.awarenessTimer);
     this.awareness.destroy();
     this.doc.destroy();
+  }
+
+  private sendAwareness(): void {
+    this.awarenessTimer = null;
+    const changed = [...this.awarenessChanged];
+    this.awarenessChanged.clear();
+    // A removed state is encoded as null with its next clock, so departures travel in the same message.
+    if (changed.length > 0) this.broadcast(awarenessMessage(awarenessProtocol.encodeAwarenessUpdate(this.awareness, changed)), null);
   }
 
   private ownedByOther(clientId: number, asker: Peer): boolean {
