@@ -13,6 +13,8 @@ export interface WorkerSetup {
   cookie: string;
   updatesPerClient: number;
   roundMs: number;
+  /** How long to wait after the last edit for everything to arrive before counting the rest as lost. */
+  waitMs: number;
   /** The kernel's clock ticks per second (getconf CLK_TCK), the unit of /proc CPU times. */
   ticksPerSecond: number;
   /** The clients this worker runs: the sheet, the client's number across the scenario, how many share its sheet. */
@@ -22,7 +24,16 @@ export interface WorkerSetup {
 export type ToWorker = { type: 'go'; startMs: number };
 export type FromWorker =
   | { type: 'synced' }
-  | { type: 'report'; latenciesMs: Float64Array; received: number; expected: number; cpuMs: number };
+  | {
+      type: 'report';
+      latenciesMs: Float64Array;
+      received: number;
+      expected: number;
+      cpuMs: number;
+      /** Clients that did not see every edit of their sheet, and how many edits their documents still lack. */
+      shortClients: number;
+      absentFromDocs: number;
+    };
 
 export const monotonicMs = () => Number(process.hrtime.bigint()) / 1e6;
 
@@ -50,8 +61,10 @@ async function run(setup: WorkerSetup) {
 
   const latencies: number[] = [];
   let received = 0;
+  const receivedBy = new Map<SyncClient, number>();
   const expected = setup.clients.reduce((n, c) => n + (c.sheetClients - 1) * setup.updatesPerClient, 0);
   for (const { client } of clients) {
+    receivedBy.set(client, 0);
     client.doc.getMap('elements').observe((event) => {
       if (event.transaction.local) return;
       const now = monotonicMs();
@@ -60,6 +73,7 @@ async function run(setup: WorkerSetup) {
         if (Number.isNaN(sent)) continue;
         latencies.push(now - sent);
         received++;
+        receivedBy.set(client, receivedBy.get(client)! + 1);
       }
     });
   }
@@ -80,11 +94,20 @@ async function run(setup: WorkerSetup) {
       cmd.addElement({ kind: 'bus', id, name: id, x: round, y: index });
     }
   }
-  const deadline = monotonicMs() + 15_000;
+  const deadline = monotonicMs() + setup.waitMs;
   while (received < expected && monotonicMs() < deadline) await pause(20);
   const cpuMs = threadCpuMs() - cpu0;
+  // Told apart when something is missing: an edit absent from the document was not delivered (late or lost); one
+  // present but not counted would be a fault of this measurement.
+  let shortClients = 0;
+  let absentFromDocs = 0;
+  for (const [i, { client }] of clients.entries()) {
+    const whole = setup.clients[i].sheetClients * setup.updatesPerClient;
+    if (receivedBy.get(client)! < (setup.clients[i].sheetClients - 1) * setup.updatesPerClient) shortClients++;
+    absentFromDocs += whole - [...client.doc.getMap('elements').keys()].filter((k) => k.startsWith('u-')).length;
+  }
   const latenciesMs = Float64Array.from(latencies);
-  port.postMessage({ type: 'report', latenciesMs, received, expected, cpuMs } satisfies FromWorker, [latenciesMs.buffer]);
+  port.postMessage({ type: 'report', latenciesMs, received, expected, cpuMs, shortClients, absentFromDocs } satisfies FromWorker, [latenciesMs.buffer]);
   for (const { client } of clients) client.destroy();
 }
 

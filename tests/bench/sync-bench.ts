@@ -22,6 +22,7 @@ const UPDATES_PER_CLIENT = Number(process.env.BENCH_UPDATES ?? 20);
 const WORKERS = Number(process.env.BENCH_WORKERS ?? 4);
 const REPEAT = Number(process.env.BENCH_REPEAT ?? 1);
 const ROUND_MS = 100;
+const WAIT_MS = Number(process.env.BENCH_WAIT_MS ?? 15_000);
 const TICKS_PER_SECOND = Number(execSync('getconf CLK_TCK').toString().trim()) || 100;
 const pause = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
@@ -65,6 +66,7 @@ async function scenario(http: TestClient, projectId: string, serverPid: number, 
       cookie: http.cookieHeader(),
       updatesPerClient: UPDATES_PER_CLIENT,
       roundMs: ROUND_MS,
+      waitMs: WAIT_MS,
       ticksPerSecond: TICKS_PER_SECOND,
       clients: all.filter((_, i) => i % workerCount === w),
     }),
@@ -101,6 +103,8 @@ async function scenario(http: TestClient, projectId: string, serverPid: number, 
       expected,
       received,
       lost: expected - received,
+      shortClients: results.reduce((n, r) => n + r.shortClients, 0),
+      absentFromDocs: results.reduce((n, r) => n + r.absentFromDocs, 0),
       p50: pct(latencies, 50),
       p95: pct(latencies, 95),
       p99: pct(latencies, 99),
@@ -160,6 +164,9 @@ async function main() {
         console.log(
           `${label.padEnd(24)} | ${String(r.received).padStart(10)} | ${String(r.lost).padStart(4)} | ${r.p50.toFixed(1).padStart(6)} | ${r.p95.toFixed(1).padStart(6)} | ${r.p99.toFixed(1).padStart(6)} | ${rssMb(server.child.pid!).toFixed(0).padStart(13)} | ${`${(r.serverCpuMs / 1000).toFixed(2)} (${r.serverCpuPercent.toFixed(0)})`.padStart(16)} | ${`${(r.clientCpuMs / 1000).toFixed(2)} (${r.clientCpuPercent.toFixed(0)}, ${r.workerCount}, ${r.busiestWorkerCpuPercent.toFixed(0)})`.padStart(37)} | ${loadAverage()}`,
         );
+        if (r.lost > 0) {
+          console.log(`  ${r.lost} not seen within ${WAIT_MS / 1000} s of the last edit, at ${r.shortClients} client(s); ${r.absentFromDocs} absent from their documents (not delivered by then)`);
+        }
         // With a server profile, this window (CLOCK_MONOTONIC ms, the clock of V8's profile timestamps) picks the scenario out of it.
         if (nodeArgs.length > 0) console.log(`  window ${r.window.startMs.toFixed(0)}..${r.window.endMs.toFixed(0)} ms`);
       }
