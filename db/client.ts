@@ -1,6 +1,7 @@
 // Opens the database: embedded PGlite under DATA_DIR by default, a PostgreSQL server when DATABASE_URL is given.
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
+import type { PGlite } from '@electric-sql/pglite';
 import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
 import * as schema from './schema';
 
@@ -29,15 +30,16 @@ export async function openDatabase(options: { dataDir: string; databaseUrl?: str
       close: () => pool.end(),
     };
   }
-  const { PGlite } = await import('@electric-sql/pglite');
+  const { PGliteInWorker } = await import('./pglite-in-worker');
   const { drizzle } = await import('drizzle-orm/pglite');
   const { migrate } = await import('drizzle-orm/pglite/migrator');
   const dir = path.resolve(options.dataDir, 'pglite');
   // PGlite creates only the last folder of its path.
   mkdirSync(path.dirname(dir), { recursive: true });
-  const client = new PGlite(dir);
-  await client.waitReady;
-  const db = drizzle(client, { schema });
+  // PGlite runs in a worker thread so that its statements do not hold up the main thread (the websockets).
+  const client = await PGliteInWorker.open(dir);
+  // Drizzle's driver calls only `query` and `transaction`, which PGliteInWorker provides with PGlite's signatures.
+  const db = drizzle(client as unknown as PGlite, { schema });
   return {
     db: db as unknown as Database,
     kind: 'pglite',

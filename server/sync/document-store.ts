@@ -20,6 +20,8 @@ export interface DocumentStore {
   compact(sheetId: string, state: Uint8Array, throughSeq: number): Promise<void>;
 }
 
+const toBase64 = (bytes: Uint8Array) => Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('base64');
+
 // Appends from every room that arrive while a write is in flight go into the next single multi-row INSERT:
 // PGlite runs one statement at a time, so grouping across rooms is what keeps many busy sheets fast.
 function groupedAppender(db: Database) {
@@ -37,8 +39,7 @@ function groupedAppender(db: Database) {
         const values = sql.join(
           group.flatMap((w) =>
             w.entries.map((e) => {
-              const b64 = Buffer.from(e.update.buffer, e.update.byteOffset, e.update.byteLength).toString('base64');
-              return sql`(${w.sheetId}::uuid, decode(${b64}, 'base64'), ${e.userId})`;
+              return sql`(${w.sheetId}::uuid, decode(${toBase64(e.update)}, 'base64'), ${e.userId})`;
             }),
           ),
           sql`, `,
@@ -120,11 +121,12 @@ export function createDocumentStore(db: Database): DocumentStore {
     touch: (sheetId, userId, at) => touchGrouped(sheetId, userId, at),
 
     async compact(sheetId, state, throughSeq) {
+      // Hand-built upsert with the state as base64, like the appends (a large bytea parameter is slow in PGlite).
       await db.transaction(async (tx) => {
-        await tx
-          .insert(sheetSnapshot)
-          .values({ sheetId, state, throughSeq })
-          .onConflictDoUpdate({ target: sheetSnapshot.sheetId, set: { state, throughSeq, updatedAt: new Date() } });
+        await tx.execute(
+          sql`insert into ${sheetSnapshot} (sheet_id, state, through_seq) values (${sheetId}::uuid, decode(${toBase64(state)}, 'base64'), ${throughSeq})
+              on conflict (sheet_id) do update set state = excluded.state, through_seq = excluded.through_seq, updated_at = now()`,
+        );
         await tx.delete(sheetUpdate).where(and(eq(sheetUpdate.sheetId, sheetId), lte(sheetUpdate.seq, throughSeq)));
       });
     },

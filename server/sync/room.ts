@@ -17,6 +17,9 @@ export const MESSAGE_SYNC = 0;
 export const MESSAGE_AWARENESS = 1;
 export const MESSAGE_QUERY_AWARENESS = 3;
 const TOUCH_EVERY_MS = 2000;
+// Awareness changes (cursors, selections, arrivals) are gathered and sent at most this often, as one message to
+// each peer: relayed one by one, every peer's every cursor move would cost a send to every other peer.
+const AWARENESS_EVERY_MS = 40;
 
 export interface Peer {
   user: { id: string; name: string };
@@ -36,6 +39,11 @@ interface Pending {
 }
 
 export interface RoomOptions {
+  /**
+   * Compaction waits for at least this many updates since the snapshot, and for them to weigh at least as much as
+   * the snapshot itself: each compaction re-encodes and rewrites the whole document, so tying it to the bytes
+   * appended keeps its cost in proportion to the edits (a busy sheet would otherwise rewrite itself many times a second).
+   */
   compactEvery?: number;
   log?: (line: string) => void;
   /** Brings a freshly loaded document up to the current format (runs as a server-side transaction when it changes). */
@@ -50,10 +58,14 @@ export class Room {
   private flushing: Promise<void> | null = null;
   private waiters: (() => void)[] = [];
   private lastSeq = 0;
+  private awarenessChanged = new Set<number>();
+  private awarenessTimer: ReturnType<typeof setTimeout> | null = null;
   // Who edited last and when, written to the sheet's metadata at most every TOUCH_EVERY_MS and on compaction.
   private lastEdit: { userId: string | null; at: Date } | null = null;
   private lastTouchMs = 0;
   private sinceCompaction = 0;
+  private bytesSinceCompaction = 0;
+  private snapshotBytes = 0;
   private readonly compactEvery: number;
   private readonly log: (line: string) => void;
 
@@ -66,9 +78,8 @@ export class Room {
     this.log = options.log ?? (() => {});
     this.awareness.setLocalState(null);
     this.awareness.on('update', ({ added, updated, removed }: Record<string, number[]>) => {
-      const changed = [...added, ...updated, ...removed];
-      const payload = awarenessProtocol.encodeAwarenessUpdate(this.awareness, changed);
-      this.broadcast(awarenessMessage(payload), null);
+      for (const id of [...added, ...updated, ...removed]) this.awarenessChanged.add(id);
+      this.awarenessTimer ??= setTimeout(() => this.sendAwareness(), AWARENESS_EVERY_MS);
     });
   }
 
@@ -85,6 +96,8 @@ export class Room {
     );
     room.lastSeq = stored.lastSeq;
     room.sinceCompaction = stored.updates.length;
+    room.bytesSinceCompaction = stored.updates.reduce((n, u) => n + u.byteLength, 0);
+    room.snapshotBytes = stored.snapshot?.byteLength ?? 0;
     const migrate = options.upgrade?.(room.doc);
     if (migrate) await room.transact(migrate, null);
     return room;
@@ -179,8 +192,19 @@ export class Room {
     await this.flushed();
     await this.touch();
     if (this.sinceCompaction === 0) return;
-    await this.store.compact(this.sheetId, Y.encodeStateAsUpdate(this.doc), this.lastSeq);
+    await this.writeSnapshot();
+  }
+
+  private async writeSnapshot(): Promise<void> {
+    const state = Y.encodeStateAsUpdate(this.doc);
+    await this.store.compact(this.sheetId, state, this.lastSeq);
     this.sinceCompaction = 0;
+    this.bytesSinceCompaction = 0;
+    this.snapshotBytes = state.byteLength;
+  }
+
+  private compactionDue(): boolean {
+    return this.sinceCompaction >= this.compactEvery && this.bytesSinceCompaction >= this.snapshotBytes;
   }
 
   private async touch(): Promise<void> {
@@ -213,8 +237,17 @@ export class Room {
   }
 
   destroy(): void {
+    if (this.awarenessTimer) clearTimeout(this.awarenessTimer);
     this.awareness.destroy();
     this.doc.destroy();
+  }
+
+  private sendAwareness(): void {
+    this.awarenessTimer = null;
+    const changed = [...this.awarenessChanged];
+    this.awarenessChanged.clear();
+    // A removed state is encoded as null with its next clock, so departures travel in the same message.
+    if (changed.length > 0) this.broadcast(awarenessMessage(awarenessProtocol.encodeAwarenessUpdate(this.awareness, changed)), null);
   }
 
   private ownedByOther(clientId: number, asker: Peer): boolean {
@@ -230,6 +263,9 @@ export class Room {
   // Stores queued updates a batch at a time: updates arriving during a write wait and go in the next one.
   private async flushLoop(): Promise<void> {
     try {
+      // The first batch waits one turn of the event loop, so that the messages already read from other sockets
+      // in this turn (a burst) join it: one write and one relay instead of one per message.
+      await new Promise((resolve) => setImmediate(resolve));
       while (this.pending.length > 0) {
         const batch = this.pending.splice(0);
         try {
@@ -243,14 +279,16 @@ export class Room {
           continue;
         }
         this.sinceCompaction += batch.length;
+        for (const item of batch) this.bytesSinceCompaction += item.update.byteLength;
         for (const item of batch) Y.applyUpdate(this.doc, item.update, item.origin);
         this.relay(batch);
         for (const item of batch) item.settle?.();
         this.lastEdit = { userId: batch.findLast((b) => b.userId)?.userId ?? this.lastEdit?.userId ?? null, at: new Date() };
-        if (Date.now() - this.lastTouchMs >= TOUCH_EVERY_MS) await this.touch();
-        if (this.sinceCompaction >= this.compactEvery) {
-          await this.store.compact(this.sheetId, Y.encodeStateAsUpdate(this.doc), this.lastSeq);
-          this.sinceCompaction = 0;
+        // The metadata touch is not waited for: it is grouped and ordered by the store and guards nothing relayed.
+        if (Date.now() - this.lastTouchMs >= TOUCH_EVERY_MS) void this.touch();
+        // Compaction holds up the next batch, so it waits for a lull (nothing queued) unless far overdue.
+        if (this.compactionDue() && (this.pending.length === 0 || this.sinceCompaction >= 4 * this.compactEvery)) {
+          await this.writeSnapshot().catch((err) => this.log(`sync ${this.sheetId}: compaction failed: ${String(err)}`));
         }
       }
     } finally {

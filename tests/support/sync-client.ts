@@ -19,7 +19,8 @@ export function cookieWebSocket(cookie: string): typeof WebSocket {
   } as typeof WebSocket;
 }
 
-export function connectSheet(http: TestClient, sheetId: string, doc = new Y.Doc()): SyncClient {
+/** `http` only lends its address and session cookie (a benchmark worker passes those alone). */
+export function connectSheet(http: Pick<TestClient, 'baseUrl' | 'cookieHeader'>, sheetId: string, doc = new Y.Doc()): SyncClient {
   const wsUrl = http.baseUrl.replace(/^http/, 'ws') + '/sync';
   const provider = new WebsocketProvider(wsUrl, sheetId, doc, {
     WebSocketPolyfill: cookieWebSocket(http.cookieHeader()) as any,

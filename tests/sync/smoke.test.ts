@@ -24,3 +24,21 @@ it('relays edits between two clients of the same user', async () => {
   c1.destroy();
   c2.destroy();
 });
+
+it('gathers a burst of awareness changes into few messages, ending on the latest state', async () => {
+  const c1 = connectSheet(a, sheetId);
+  const c2 = connectSheet(a, sheetId);
+  await Promise.all([c1.synced(), c2.synced()]);
+  c1.provider.awareness.setLocalStateField('cursor', { x: 0, y: 0 });
+  await eventually(() => (c2.provider.awareness.getStates().get(c1.doc.clientID) as any)?.cursor?.x === 0, 'first cursor');
+  let changes = 0;
+  c2.provider.awareness.on('change', ({ updated }: { updated: number[] }) => {
+    if (updated.includes(c1.doc.clientID)) changes++;
+  });
+  // 20 cursor moves in one go: each is its own message from c1, relayed one by one they would be 20 changes at c2.
+  for (let i = 1; i <= 20; i++) c1.provider.awareness.setLocalStateField('cursor', { x: i, y: i });
+  await eventually(() => (c2.provider.awareness.getStates().get(c1.doc.clientID) as any)?.cursor?.x === 20, 'last cursor');
+  expect(changes).toBeLessThanOrEqual(5);
+  c1.destroy();
+  c2.destroy();
+});
