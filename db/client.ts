@@ -30,16 +30,28 @@ export async function openDatabase(options: { dataDir: string; databaseUrl?: str
       close: () => pool.end(),
     };
   }
-  const { PGliteInWorker } = await import('./pglite-in-worker');
   const { drizzle } = await import('drizzle-orm/pglite');
   const { migrate } = await import('drizzle-orm/pglite/migrator');
   const dir = path.resolve(options.dataDir, 'pglite');
   // PGlite creates only the last folder of its path.
   mkdirSync(path.dirname(dir), { recursive: true });
-  // PGlite runs in a worker thread so that its statements do not hold up the main thread (the websockets).
-  const client = await PGliteInWorker.open(dir);
-  // Drizzle's driver calls only `query` and `transaction`, which PGliteInWorker provides with PGlite's signatures.
-  const db = drizzle(client as unknown as PGlite, { schema });
+  // PGLITE_WORKER=1 runs PGlite in a worker thread so that its statements never hold up the websockets. It is off by
+  // default until a quiet machine shows that it pays (server/sync/README.md, "PGlite in a worker").
+  let client: { close(): Promise<void> };
+  let db: ReturnType<typeof drizzle<typeof schema>>;
+  if (process.env.PGLITE_WORKER === '1') {
+    const { PGliteInWorker } = await import('./pglite-in-worker');
+    const inWorker = await PGliteInWorker.open(dir);
+    // Drizzle's driver calls only `query` and `transaction`, which PGliteInWorker provides with PGlite's signatures.
+    db = drizzle(inWorker as unknown as PGlite, { schema });
+    client = inWorker;
+  } else {
+    const { PGlite: InProcess } = await import('@electric-sql/pglite');
+    const local = new InProcess(dir);
+    await local.waitReady;
+    db = drizzle(local, { schema });
+    client = local;
+  }
   return {
     db: db as unknown as Database,
     kind: 'pglite',
