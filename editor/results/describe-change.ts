@@ -1,5 +1,6 @@
 // A what-if change in plain words, naming the elements ("Open N of Feeder 2", "3 Ω on N at the lug of …").
-import type { WhatIfChange } from '../../shared/sheet';
+import type { ShuntFaultType, WhatIfChange } from '../../shared/sheet';
+import { FAULT_TYPE_LABEL } from '../studies/fault-labels';
 
 export function describeChange(change: WhatIfChange | Record<string, unknown>, nameOf: (id: string) => string): string {
   const c = change as Record<string, unknown>;
@@ -18,7 +19,7 @@ export function describeChange(change: WhatIfChange | Record<string, unknown>, n
     case 'scale-loads':
       return `Loads ${c.scope === 'panel' ? 'of' : 'fed from'} ${n('elementId')} × ${c.factor}`;
     case 'shunt-fault':
-      return `Fault at ${n('busId')} (not yet solved)`;
+      return `${FAULT_TYPE_LABEL[c.faultType as ShuntFaultType] ?? 'Shunt'} fault at ${n('busId')}${Number(c.faultOhms) > 0 ? ` through ${c.faultOhms} Ω` : ''}`;
     default:
       return String(c.kind ?? 'change');
   }
