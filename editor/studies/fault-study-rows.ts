@@ -202,3 +202,26 @@ export function queryFaultCases(rows: readonly FaultCaseRow[], query: TableQuery
 export function faultCaseChange(row: Pick<FaultCaseRow, 'busId' | 'faultType'>): WhatIfChange {
   return { kind: 'shunt-fault', busId: row.busId, faultType: row.faultType, to: 'PE', faultOhms: 0 };
 }
+
+/** How a standing is drawn (the tag standings of the drawing: tint and outline). */
+export const CASE_STATUS_STANDING: Record<CaseStatus, 'outside' | 'tolerable' | 'normal' | 'plain'> = {
+  fails: 'outside',
+  'x-over-r-above-test': 'tolerable',
+  passes: 'normal',
+  'no-rating': 'plain',
+  'no-figures': 'plain',
+};
+
+export const DUTY_STATUS_LABEL: Record<DutyStatus, string> = { fails: 'Exceeded', 'passes-x-over-r-above-test': 'Holds (X/R above test)', passes: 'Holds' };
+export const DUTY_STATUS_STANDING: Record<DutyStatus, 'outside' | 'tolerable' | 'normal'> = { fails: 'outside', 'passes-x-over-r-above-test': 'tolerable', passes: 'normal' };
+
+/** kA with one decimal (three significant figures below 1 kA); a dash for none. */
+export function formatKa(ka: number | undefined): string {
+  if (ka === undefined || !Number.isFinite(ka)) return '—';
+  return ka < 1 ? ka.toPrecision(2) : ka.toFixed(1);
+}
+
+export function formatMargin(percent: number | undefined): string {
+  if (percent === undefined || !Number.isFinite(percent)) return '—';
+  return `${percent > 0 ? '+' : percent < 0 ? '−' : ''}${Math.abs(percent).toFixed(0)} %`;
+}

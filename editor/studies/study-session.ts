@@ -6,7 +6,9 @@ import type { WhatIfChange } from '../../shared/sheet';
 import type { SheetSession } from '../session/sheet-session';
 import { Store } from '../session/store';
 import { StudyRunner, type StudyWorkerLike } from '../solve/study-runner';
-import { faultCaseChange, type FaultCaseRow } from './fault-study-rows';
+import { faultCaseChange, type FaultCaseColumn, type FaultCaseRow } from './fault-study-rows';
+import { emptyQuery, nextSort, type TableQuery } from './table-query';
+import type { ProfileOrder } from './voltage-profile';
 import { FAULT_TYPE_LABEL } from './fault-labels';
 
 export type StudyStatus = 'idle' | 'running' | 'done' | 'failed' | 'cancelled';
@@ -24,15 +26,26 @@ export interface FaultStudyState {
   transformerTolerance: boolean;
   /** The tolerance the shown result was run with. */
   ranWithTolerance: boolean;
+  /** When the shown result was found (epoch ms): the date of the calculation that a field marking states. */
+  finishedAt: number | null;
 }
 
+/** The studies panel's sections. */
+export type StudyTab = 'faults' | 'profile';
+
 export interface StudiesState {
+  tab: StudyTab;
   fault: FaultStudyState;
+  faultQuery: TableQuery<FaultCaseColumn>;
+  profileOrder: ProfileOrder;
 }
 
 export function initialStudies(): StudiesState {
   return {
-    fault: { status: 'idle', progress: null, result: null, error: null, ms: null, where: null, stale: false, transformerTolerance: false, ranWithTolerance: false },
+    tab: 'faults',
+    faultQuery: emptyQuery<FaultCaseColumn>(),
+    profileOrder: 'name',
+    fault: { status: 'idle', progress: null, result: null, error: null, ms: null, where: null, stale: false, transformerTolerance: false, ranWithTolerance: false, finishedAt: null },
   };
 }
 
@@ -58,7 +71,7 @@ export class StudySession {
       workerUrl: session.options.workerUrl,
       createWorker,
       onProgress: (_, done, total) => fault({ progress: { done, total } }),
-      onDone: (_, m, where) => fault({ status: 'done', result: m.result, error: null, ms: m.ms, where, progress: null }),
+      onDone: (_, m, where) => fault({ status: 'done', result: m.result, error: null, ms: m.ms, where, progress: null, finishedAt: Date.now() }),
       onFailed: (_, error) => fault({ status: 'failed', error, progress: null }),
       onCancelled: () => fault({ status: 'cancelled', progress: null }),
     });
@@ -75,6 +88,33 @@ export class StudySession {
     this.runner.start({ type: 'study', study: 'fault', sheet: read.sheet, transformerTolerance: tolerance });
   }
 
+  setTab(tab: StudyTab): void {
+    this.store.set({ tab });
+  }
+
+  setFaultQuery(patch: Partial<TableQuery<FaultCaseColumn>>): void {
+    this.store.set((s) => ({ faultQuery: { ...s.faultQuery, ...patch } }));
+  }
+
+  /** A tap on a column's head: figures first high to low, words and the standing (worst first) low to high. */
+  sortFaultsBy(column: FaultCaseColumn): void {
+    const first = column === 'bus' || column === 'faultType' || column === 'status' || column === 'marginPercent' ? 'ascending' : 'descending';
+    this.store.set((s) => ({ faultQuery: { ...s.faultQuery, sort: nextSort(s.faultQuery.sort, column, first) } }));
+  }
+
+  /** Adds the value to the column's filter, or takes it out. */
+  toggleFaultFilter(column: 'faultType' | 'status', value: string): void {
+    this.store.set((s) => {
+      const now = s.faultQuery.only[column] ?? [];
+      const next = now.includes(value) ? now.filter((v) => v !== value) : [...now, value];
+      return { faultQuery: { ...s.faultQuery, only: { ...s.faultQuery.only, [column]: next } } };
+    });
+  }
+
+  setProfileOrder(profileOrder: ProfileOrder): void {
+    this.store.set({ profileOrder });
+  }
+
   cancel(): void {
     this.runner.cancel();
   }
@@ -84,7 +124,11 @@ export class StudySession {
   }
 
   /** Shows a case of the fault study on the drawing: the base case with that fault, as a trial. */
-  showFaultCase(row: Pick<FaultCaseRow, 'busId' | 'busName' | 'faultType'>): void {
+  showFaultCase(row: Pick<FaultCaseRow, 'busId' | 'busName' | 'faultType'> & { problem?: string }): void {
+    if (row.problem) {
+      this.say(`No figures for this case: ${row.problem}`);
+      return;
+    }
     this.session.ui.set({ whatIfId: null, trialChanges: [faultCaseChange(row)] });
     this.say(`${FAULT_TYPE_LABEL[row.faultType]} fault at ${row.busName}, on the drawing (a trial, not saved)`);
   }

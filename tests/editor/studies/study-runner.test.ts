@@ -168,3 +168,42 @@ describe('the study session', () => {
     expect(shownFaultKey(session.ui.get().trialChanges)).toBeNull();
   });
 });
+
+describe('the study session query', () => {
+  it('sorts on a first tap by the column’s own first direction, reverses on a second, and toggles filters', () => {
+    const session = new SheetSession({ sheetId: 's', wsBase: '', editable: true, user: { id: 'u1', name: 'Rosa' }, solveMode: 'main' });
+    const studies = new StudySession(session, () => {});
+    try {
+      studies.sortFaultsBy('symmetricalKa');
+      expect(studies.store.get().faultQuery.sort).toEqual({ key: 'symmetricalKa', direction: 'descending' });
+      studies.sortFaultsBy('symmetricalKa');
+      expect(studies.store.get().faultQuery.sort).toEqual({ key: 'symmetricalKa', direction: 'ascending' });
+      studies.sortFaultsBy('status');
+      expect(studies.store.get().faultQuery.sort).toEqual({ key: 'status', direction: 'ascending' });
+      studies.toggleFaultFilter('faultType', 'three-phase');
+      studies.toggleFaultFilter('faultType', 'line-to-ground');
+      expect(studies.store.get().faultQuery.only.faultType).toEqual(['three-phase', 'line-to-ground']);
+      studies.toggleFaultFilter('faultType', 'three-phase');
+      expect(studies.store.get().faultQuery.only.faultType).toEqual(['line-to-ground']);
+    } finally {
+      studies.destroy();
+      session.destroy();
+    }
+  });
+});
+
+describe('a case with no figures', () => {
+  it('is not put on the drawing; the reason is said instead', () => {
+    const session = new SheetSession({ sheetId: 's', wsBase: '', editable: true, user: { id: 'u1', name: 'Rosa' }, solveMode: 'main' });
+    const said: string[] = [];
+    const studies = new StudySession(session, (t) => said.push(t));
+    try {
+      studies.showFaultCase({ busId: 'apt-3', busName: 'Apartment 3', faultType: 'three-phase', problem: 'the bus has 2 phases' });
+      expect(session.ui.get().trialChanges).toEqual([]);
+      expect(said).toEqual(['No figures for this case: the bus has 2 phases']);
+    } finally {
+      studies.destroy();
+      session.destroy();
+    }
+  });
+});

@@ -1,0 +1,52 @@
+// Marks over the drawing for a case shown from a study: where a shunt fault is placed (with its type and current)
+// and, for a readings match, the candidate cause. Also the view change that brings a marked element into sight
+// above a panel that covers the lower part of the canvas.
+import type { Rect } from '../../shared/symbols';
+import type { SolveResult } from '../../solver';
+import type { Viewport } from '../canvas/viewport';
+import { FAULT_TYPE_SHORT } from './fault-labels';
+import { formatKa } from './fault-study-rows';
+
+export interface CaseMark {
+  key: string;
+  kind: 'fault' | 'candidate';
+  elementId: string;
+  /** The mark's anchor on the drawing: the left middle of the element's body. */
+  x: number;
+  y: number;
+  label: string;
+}
+
+export function caseMarks(result: SolveResult | null, bodyOf: (id: string) => Rect | undefined): CaseMark[] {
+  const fault = result?.fault;
+  if (!fault) return [];
+  const body = bodyOf(fault.busId);
+  if (!body) return [];
+  return [
+    {
+      key: `fault-${fault.busId}`,
+      kind: 'fault',
+      elementId: fault.busId,
+      x: body.x,
+      y: body.y + body.height / 2,
+      label: `${FAULT_TYPE_SHORT[fault.faultType]} fault ${formatKa(fault.symmetricalKa)} kA`,
+    },
+  ];
+}
+
+/**
+ * The viewport that puts `rect` (drawing units) in the middle of the visible part of the canvas, the top
+ * `visibleFraction` of its height, at the same zoom; the viewport unchanged when it is already in sight there.
+ */
+export function revealViewport(vp: Viewport, size: { width: number; height: number }, rect: Rect, visibleFraction: number): Viewport {
+  const visibleHeight = size.height * visibleFraction;
+  const left = rect.x * vp.zoom + vp.x;
+  const top = rect.y * vp.zoom + vp.y;
+  const right = left + rect.width * vp.zoom;
+  const bottom = top + rect.height * vp.zoom;
+  const margin = 16;
+  if (left >= margin && right <= size.width - margin && top >= margin && bottom <= visibleHeight - margin) return vp;
+  const cx = rect.x + rect.width / 2;
+  const cy = rect.y + rect.height / 2;
+  return { zoom: vp.zoom, x: size.width / 2 - cx * vp.zoom, y: visibleHeight / 2 - cy * vp.zoom };
+}

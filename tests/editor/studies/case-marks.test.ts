@@ -1,0 +1,37 @@
+// The fault's mark on the drawing and bringing a marked element into the part of the canvas a panel leaves free.
+import { describe, expect, it } from 'vitest';
+import { solveSheet } from '../../../solver';
+import { caseMarks, revealViewport } from '../../../editor/studies/case-marks';
+import { faultCaseChange } from '../../../editor/studies/fault-study-rows';
+import { worldToScreen } from '../../../editor/canvas/viewport';
+import { demoSheet } from '../support/fixtures';
+
+const sheet = demoSheet('larkspur-row.json');
+
+describe('case marks', () => {
+  it('marks the faulted bus with the fault type and its current, and nothing for a plain case', () => {
+    const withFault = { ...sheet, whatIfs: { f: { id: 'f', name: 'f', changes: { x: faultCaseChange({ busId: 'apt-3', faultType: 'line-to-line' }) } } } };
+    const out = solveSheet(withFault, { whatIfId: 'f' });
+    if (!out.ok) throw new Error(out.error.message);
+    const body = { x: 100, y: 200, width: 120, height: 10 };
+    const marks = caseMarks(out.result, (id) => (id === 'apt-3' ? body : undefined));
+    expect(marks).toHaveLength(1);
+    expect(marks[0]).toMatchObject({ kind: 'fault', elementId: 'apt-3', x: 100, y: 205 });
+    expect(marks[0].label).toBe(`L–L fault ${out.result.fault!.symmetricalKa.toFixed(1)} kA`);
+    const base = solveSheet(sheet);
+    if (!base.ok) throw new Error(base.error.message);
+    expect(caseMarks(base.result, () => body)).toEqual([]);
+  });
+
+  it('moves the view only when the element is out of the free part, then centres it there at the same zoom', () => {
+    const size = { width: 390, height: 700 };
+    const rect = { x: 1000, y: 900, width: 60, height: 20 };
+    const vp = { x: 0, y: 0, zoom: 0.5 };
+    const moved = revealViewport(vp, size, rect, 0.4);
+    expect(moved.zoom).toBe(0.5);
+    const c = worldToScreen(moved, { x: 1030, y: 910 });
+    expect(c.x).toBeCloseTo(195, 9);
+    expect(c.y).toBeCloseTo(140, 9);
+    expect(revealViewport(moved, size, rect, 0.4)).toBe(moved);
+  });
+});
