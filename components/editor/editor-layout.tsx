@@ -25,6 +25,8 @@ export interface EditorLayoutProps {
   panel: ReactNode;
   /** Phone only: the selection's bar, when nothing slides over it. */
   peek: ReactNode;
+  /** Wide only: a pane under the canvas (the studies), the drawing still in sight above it. */
+  bottomPane?: ReactNode;
 }
 
 export function EditorLayout(p: EditorLayoutProps) {
@@ -62,6 +64,11 @@ export function EditorLayout(p: EditorLayoutProps) {
         ) : null}
         <View style={styles.centre}>
           {stage}
+          {p.bottomPane ? (
+            <ScrollView style={[styles.bottom, { backgroundColor: color.surface, borderTopColor: color.line }]} contentContainerStyle={styles.bottomBody} testID="bottom-pane">
+              {p.bottomPane}
+            </ScrollView>
+          ) : null}
           {p.toolBar}
         </View>
         <ScrollView style={[styles.right, { backgroundColor: color.surface, borderLeftColor: color.line }]} testID="side-pane">
@@ -83,4 +90,6 @@ const styles = StyleSheet.create({
   leftBody: { padding: space.md, gap: space.md },
   centre: { flex: 1 },
   right: { width: 380, flexGrow: 0, borderLeftWidth: 1 },
+  bottom: { flexGrow: 0, flexShrink: 0, height: '48%', borderTopWidth: 1 },
+  bottomBody: { padding: space.lg, gap: space.md },
 });

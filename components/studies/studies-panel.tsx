@@ -10,7 +10,7 @@ import type { TableQuery } from '@/editor/studies/table-query';
 import type { ProfileOrder } from '@/editor/studies/voltage-profile';
 import { radius, space, touchTargetMin } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
-import { Button } from '../ui/button';
+import { Button, IconButton } from '../ui/button';
 import { Icon } from '../ui/icon';
 import { Text } from '../ui/text';
 import { DutyList, FaultStudyTable, ServiceMarkings } from './fault-study-table';
@@ -36,6 +36,8 @@ export interface StudiesPanelProps {
   onShowDuty: (duty: DutyRow) => void;
   onClearCase: () => void;
   onProfileOrder: (order: ProfileOrder) => void;
+  /** Wide screens: the pane's close button (a phone's sliding panel has its own). */
+  onClose?: () => void;
 }
 
 function Section({ title, children, testID }: { title: string; children: ReactNode; testID?: string }) {
@@ -178,7 +180,10 @@ function FaultTab(p: StudiesPanelProps) {
 export function StudiesPanel(p: StudiesPanelProps) {
   return (
     <View style={styles.panel} testID="studies-panel">
-      <Tabs tab={p.tab} onTab={p.onTab} />
+      <View style={styles.top}>
+        <Tabs tab={p.tab} onTab={p.onTab} />
+        {p.onClose ? <IconButton icon="x" label="Close the studies" onPress={p.onClose} testID="studies-close" /> : null}
+      </View>
       {p.tab === 'faults' ? (
         <FaultTab {...p} />
       ) : (
@@ -193,6 +198,7 @@ export function StudiesPanel(p: StudiesPanelProps) {
 
 const styles = StyleSheet.create({
   panel: { gap: space.md },
+  top: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
   gap: { gap: space.md },
   flex: { flex: 1 },
   tabs: { flexDirection: 'row', borderWidth: 1, borderRadius: radius.md, padding: 2, gap: 2, alignSelf: 'flex-start' },

@@ -20,12 +20,14 @@ import { TopBar } from '@/components/editor/top-bar';
 import { ViewButtons } from '@/components/editor/view-buttons';
 import { useResponsive } from '@/components/layout/use-responsive';
 import { SheetDetail } from '@/components/projects/sheet-detail';
+import { StudiesPanel } from '@/components/studies/studies-panel';
 import { useTheme } from '@/components/theme/use-theme';
 import { Button } from '@/components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Text } from '@/components/ui/text';
 import { useCanvasBindings, useSheetEditor } from '@/editor/ui/use-sheet-editor';
 import { useEditorView } from '@/editor/ui/use-editor-view';
+import { useStudiesPanel } from '@/editor/studies/use-studies-panel';
 import { isApiError } from '@/shared/client/api-client';
 import { useSession, useSheet } from '@/shared/client/queries';
 
@@ -44,6 +46,7 @@ export default function SheetScreen() {
   const handle = useSheetEditor(role && user ? { sheetId, editable: role !== 'viewer', user: { id: user.id, name: user.name || user.email } } : null);
   const view = useEditorView(handle);
   const bindings = useCanvasBindings(handle);
+  const studies = useStudiesPanel(handle, view, isPhone);
   const a = handle?.actions;
 
   const goBack = () => (sheet.data ? router.dismissTo(`/projects/${sheet.data.project.id}`) : router.replace('/'));
@@ -113,6 +116,7 @@ export default function SheetScreen() {
     crew: { title: 'Crew', body: crew, testID: 'panel-crew' },
     about: { title: 'Sheet details', body: about, testID: 'panel-about' },
     cautions: { title: 'Cautions', body: cautions, testID: 'panel-cautions' },
+    studies: isPhone ? { title: 'Studies', body: <StudiesPanel layout="cards" {...studies.props} />, testID: 'panel-studies' } : null,
   };
   const open = panels[ui.panel];
   const wideExtra = !isPhone && (ui.panel === 'crew' || ui.panel === 'about' || ui.panel === 'cautions') ? open : null;
@@ -154,6 +158,7 @@ export default function SheetScreen() {
             scheme={scheme}
             convention={view.convention}
             showTerminals={view.editable && ui.tool === 'select'}
+            marks={studies.marks}
             gesture={bindings.gesture}
             onGroundNode={bindings.onGroundNode}
             onWorldNode={bindings.onWorldNode}
@@ -189,6 +194,8 @@ export default function SheetScreen() {
             onUndo={a.undo}
             onRedo={a.redo}
             onResults={() => a.openPanel(ui.panel === 'results' ? 'none' : 'results')}
+            studiesOpen={ui.panel === 'studies'}
+            onStudies={() => a.openPanel(ui.panel === 'studies' ? 'none' : 'studies')}
           />
         }
         leftPane={view.editable ? <PaneSection title="Add an element">{palette}</PaneSection> : null}
@@ -218,6 +225,7 @@ export default function SheetScreen() {
             />
           ) : null
         }
+        bottomPane={!isPhone && ui.panel === 'studies' ? <StudiesPanel layout="table" {...studies.props} onClose={a.closePanel} /> : null}
         panel={open ? <SlidingPanel title={open.title} onClose={a.closePanel} testID={open.testID}>{open.body}</SlidingPanel> : null}
       />
     </>
