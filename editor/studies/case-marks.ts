@@ -35,18 +35,20 @@ export function caseMarks(result: SolveResult | null, bodyOf: (id: string) => Re
 }
 
 /**
- * The viewport that puts `rect` (drawing units) in the middle of the visible part of the canvas, the top
- * `visibleFraction` of its height, at the same zoom; the viewport unchanged when it is already in sight there.
+ * The viewport that brings `rect` (drawing units) into the visible part of the canvas (its top `visibleFraction`),
+ * placed a little below that part's middle (the messages sit at the top), zoomed in to at least `minZoom` so that
+ * its value tags are drawn; the viewport unchanged when it is already in sight at that zoom.
  */
-export function revealViewport(vp: Viewport, size: { width: number; height: number }, rect: Rect, visibleFraction: number): Viewport {
+export function revealViewport(vp: Viewport, size: { width: number; height: number }, rect: Rect, visibleFraction: number, minZoom = 0): Viewport {
   const visibleHeight = size.height * visibleFraction;
+  const zoom = Math.max(vp.zoom, minZoom);
   const left = rect.x * vp.zoom + vp.x;
   const top = rect.y * vp.zoom + vp.y;
   const right = left + rect.width * vp.zoom;
   const bottom = top + rect.height * vp.zoom;
   const margin = 16;
-  if (left >= margin && right <= size.width - margin && top >= margin && bottom <= visibleHeight - margin) return vp;
+  if (zoom === vp.zoom && left >= margin && right <= size.width - margin && top >= margin && bottom <= visibleHeight - margin) return vp;
   const cx = rect.x + rect.width / 2;
   const cy = rect.y + rect.height / 2;
-  return { zoom: vp.zoom, x: size.width / 2 - cx * vp.zoom, y: visibleHeight / 2 - cy * vp.zoom };
+  return { zoom, x: size.width / 2 - cx * zoom, y: visibleHeight * 0.6 - cy * zoom };
 }

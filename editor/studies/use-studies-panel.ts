@@ -22,7 +22,8 @@ export function useStudiesPanel(handle: EditorHandle | null, view: EditorView, i
       const placed = handle?.canvas.scene.elements.get(busId);
       if (!handle || !placed) return;
       const c = handle.canvas;
-      c.setViewport(revealViewport(c.viewport, c.viewSize, placed.bounds, isPhone ? 0.4 : 1));
+      // Near enough for the value tags (the canvas hides them when zoomed far out).
+      c.setViewport(revealViewport(c.viewport, c.viewSize, placed.bounds, isPhone ? 0.42 : 1, 0.75));
     };
     const showCase = (row: Pick<FaultCaseRow, 'busId' | 'busName' | 'faultType'> & { problem?: string }) => {
       s?.showFaultCase(row);

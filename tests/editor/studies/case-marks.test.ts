@@ -31,7 +31,14 @@ describe('case marks', () => {
     expect(moved.zoom).toBe(0.5);
     const c = worldToScreen(moved, { x: 1030, y: 910 });
     expect(c.x).toBeCloseTo(195, 9);
-    expect(c.y).toBeCloseTo(140, 9);
+    expect(c.y).toBeCloseTo(700 * 0.4 * 0.6, 9);
     expect(revealViewport(moved, size, rect, 0.4)).toBe(moved);
+    // Zoomed out too far for value tags: zoomed in to the floor, the element still where it is put.
+    const nearer = revealViewport(moved, size, rect, 0.4, 0.8);
+    expect(nearer.zoom).toBe(0.8);
+    const n = worldToScreen(nearer, { x: 1030, y: 910 });
+    expect(n.x).toBeCloseTo(195, 9);
+    expect(n.y).toBeCloseTo(700 * 0.4 * 0.6, 9);
+    expect(revealViewport({ x: 0, y: 0, zoom: 2 }, size, { x: 10, y: 10, width: 20, height: 5 }, 1, 0.8).zoom).toBe(2);
   });
 });
