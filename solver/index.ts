@@ -8,3 +8,5 @@ export { solveFault, prepareFaults, faultResult, faultCase, withTransformerToler
 export { peakFactor, asymmetricalPeakAmperes } from './faults/peak-factor';
 export type * from './faults/fault-types';
 export { faultStudy, testXOverR, type FaultStudyOptions, type FaultStudyResult, type FaultStudyCase, type DutyCheck, type DutyStatus, type ServiceMarking } from './faults/fault-study';
+export { loadingStudy, loadingStudyOf, LOADING_STUDY_NOTES } from './studies';
+export type * from './studies/types';

@@ -210,6 +210,16 @@ export const FIELDS: Record<ElementKind, FieldDef[]> = {
     { key: 'amperes', label: 'Current', type: 'quantity', unit: 'A', visible: is('givenAs', 'amperes') },
     { key: 'powerFactor', label: 'Power factor', type: 'quantity', unit: 'number' },
     { key: 'ratedVolts', label: 'Rated voltage', hint: 'Line-to-neutral for a line-to-neutral load', type: 'quantity', unit: 'V' },
+    { key: 'contributesToFaults', label: 'Feeds faults', hint: 'During a fault the motor is a source behind its subtransient reactance', type: 'toggle', visible: is('loadKind', 'motor') },
+    {
+      key: 'subtransientReactancePu',
+      label: 'Subtransient reactance X"d',
+      hint: 'Per unit on the motor’s kVA; empty: 0.17 (common practice)',
+      type: 'quantity',
+      unit: 'number',
+      optional: true,
+      visible: (v) => v.loadKind === 'motor' && v.contributesToFaults === true,
+    },
   ],
   electrode: [name, { key: 'ohms', label: 'Resistance to earth', type: 'quantity', unit: 'ohm' }],
 };

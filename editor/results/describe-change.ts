@@ -18,8 +18,12 @@ export function describeChange(change: WhatIfChange | Record<string, unknown>, n
       return `${c.ohms} Ω on ${c.conductor} of a connection`;
     case 'scale-loads':
       return `Loads ${c.scope === 'panel' ? 'of' : 'fed from'} ${n('elementId')} × ${c.factor}`;
-    case 'shunt-fault':
-      return `${FAULT_TYPE_LABEL[c.faultType as ShuntFaultType] ?? 'Shunt'} fault at ${n('busId')}${Number(c.faultOhms) > 0 ? ` through ${c.faultOhms} Ω` : ''}`;
+    case 'shunt-fault': {
+      const r = Number(c.faultOhms ?? 0);
+      const x = Number(c.faultReactanceOhms ?? 0);
+      const through = r === 0 && x === 0 ? 'bolted' : `through ${r} + j${x} Ω`;
+      return `${FAULT_TYPE_LABEL[c.faultType as ShuntFaultType] ?? 'Shunt'} fault at ${n('busId')}, ${through}`;
+    }
     default:
       return String(c.kind ?? 'change');
   }

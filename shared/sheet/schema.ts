@@ -300,6 +300,11 @@ export const loadSchema = z
     /** Unbalanced three-phase loads: kW per element (A, B, C; for delta A is A–B, B is B–C, C is C–A). Replaces kw. */
     phaseKw: z.partialRecord(phaseIdSchema, nonNegative('phaseKw')).optional(),
     phasePowerFactor: z.partialRecord(phaseIdSchema, finite().gt(0).max(1)).optional(),
+    /** Motors only (ignored for other kinds, so a kind changed later loses nothing): during a fault the motor feeds it
+     *  as a source behind its subtransient reactance [false]. */
+    contributesToFaults: z.boolean().optional(),
+    /** Subtransient reactance X"d, per unit on the motor's own kVA [0.17, solver/faults/motor-contribution.ts]. */
+    subtransientReactancePu: positive('subtransientReactancePu').max(1, 'subtransientReactancePu must be at most 1').optional(),
   })
   .superRefine((l, ctx) => {
     const fractions = [l.constantImpedanceFraction, l.constantCurrentFraction, l.constantPowerFraction];
@@ -380,14 +385,17 @@ export const changeSchema = z.discriminatedUnion(
       factor: nonNegative('factor').max(100),
       scope: z.enum(['downstream', 'panel']).default('downstream'),
     }),
-    /** Designed here; the solver rejects it as not yet supported until the fault issue lands. */
+    /** A shunt fault at a bus through faultOhms + j faultReactanceOhms (both 0: bolted); one per what-if. */
     z.object({
       kind: z.literal('shunt-fault'),
       busId: idString,
       faultType: z.enum(SHUNT_FAULT_TYPES),
       phases: z.partialRecord(phaseIdSchema, z.boolean()).optional(),
       to: z.enum(['PE', 'N', 'earth']).default('PE'),
+      /** Resistance of the fault path. */
       faultOhms: nonNegative('faultOhms').default(0),
+      /** Reactance of the fault path (added later; older documents without it read as 0, a resistive fault). */
+      faultReactanceOhms: nonNegative('faultReactanceOhms').default(0),
     }),
   ],
   { error: 'change kind must be open-conductor, degrade-conductor, open-pole, open-connection, degrade-connection, scale-loads or shunt-fault' },

@@ -182,3 +182,39 @@ export function neutralCountsAsCurrentCarrying(input: NeutralCountingInput): boo
       throw new RangeError(`unknown system "${system as string}"`);
   }
 }
+
+export interface CurrentCarryingInput {
+  /** Phase conductors of the run (A, B, C present). */
+  phases: number;
+  hasNeutral: boolean;
+  /** The system the neutral belongs to; needed when the run has a neutral and a phase. */
+  system?: NeutralCountingInput['system'];
+  nonLinearMajority: boolean;
+  /** The count the sheet gives (conductorsInRaceway), which then stands as given. */
+  given?: number;
+}
+
+export interface CurrentCarryingCount {
+  count: number;
+  countFrom: 'sheet' | 'counted';
+  /** Whether the neutral was counted; absent without a neutral or when the sheet gives the count. */
+  neutralCounted?: boolean;
+  /** Why, in words (310.15(E) paragraph). */
+  reason?: string;
+}
+
+/** Current-carrying conductors of one raceway for 310.15(C)(1), the neutral counted per 310.15(E), with the reason. */
+export function countCurrentCarrying(input: CurrentCarryingInput): CurrentCarryingCount {
+  const { phases, hasNeutral, system, nonLinearMajority, given } = input;
+  if (given !== undefined) return { count: given, countFrom: 'sheet', reason: 'count given on the sheet' };
+  if (!hasNeutral || phases === 0 || !system) return { count: Math.max(phases, 1), countFrom: 'counted' };
+  const counted = neutralCountsAsCurrentCarrying({ system, phasesInCircuit: Math.min(phases, 3), nonLinearMajority });
+  let reason: string;
+  if (phases === 1) reason = 'the neutral of a two-wire circuit carries the whole current and counts';
+  else if (system === 'wye-4-wire' && phases === 2) reason = 'the neutral counts, 310.15(E)(2): two phases and the neutral of a 4-wire wye';
+  else if (system === 'wye-4-wire' && nonLinearMajority) reason = 'the neutral counts, 310.15(E)(3): a 4-wire wye circuit whose load is mostly non-linear';
+  else if (system === 'wye-4-wire') reason = 'the neutral is not counted, 310.15(E)(1): it carries only the unbalanced current';
+  else if (system === 'split-phase') reason = 'the neutral is not counted, 310.15(E)(1): on 120/240 V it carries only the unbalance of the two halves';
+  else reason = 'the neutral is not counted, 310.15(E)(1): on a four-wire delta it carries only the unbalance of the 120/240 V part';
+  return { count: phases + (counted ? 1 : 0), countFrom: 'counted', neutralCounted: counted, reason };
+}

@@ -7,7 +7,7 @@ import { pinKey } from '../network/types';
 import type { SolveFailure } from '../solve/solve-network';
 import type { FaultOptions } from './fault-types';
 import { peakFactor } from './peak-factor';
-import { faultCase, FAULT_ASSUMPTIONS, prepareFaults, TRANSFORMER_IMPEDANCE_TOLERANCE } from './solve-fault';
+import { faultCase, FAULT_ASSUMPTIONS, motorAssumption, prepareFaults, TRANSFORMER_IMPEDANCE_TOLERANCE } from './solve-fault';
 
 export interface FaultStudyOptions extends FaultOptions {
   faultTypes?: readonly ShuntFaultType[];
@@ -152,6 +152,8 @@ export function faultStudy(sheet: Sheet, options: FaultStudyOptions = {}): { ok:
     ...FAULT_ASSUMPTIONS,
     'Fault study: a breaker is checked against the largest fault at the bus its line side lands on; a rating is compared after scaling the duty by κ(X/R)/κ(test X/R) where the fault X/R exceeds the test circuit’s (UL 489 test power factors, recalled).',
   ];
+  const motors = motorAssumption(prepared.prepared.motorIds);
+  if (motors) assumptions.push(motors);
   if (options.transformerTolerance) assumptions.push(`Fault study: transformer impedances at ${(100 * (1 - TRANSFORMER_IMPEDANCE_TOLERANCE)).toFixed(1)} % of nameplate.`);
   return { ok: true, study: { cases, duties, unlocated, serviceMarkings, cancelled, assumptions } };
 }

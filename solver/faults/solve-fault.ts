@@ -10,6 +10,9 @@ import { deriveResults } from '../results/derive';
 import type { ResultWarning } from '../results/types';
 import { solveBuiltNetwork, type Solution, type SolveFailure } from '../solve/solve-network';
 import { faultedVolts, solveFaultCurrents, type FaultSystem } from './compensation';
+import { motorContribution, MOTOR_SUBTRANSIENT_DEFAULT_PU } from './motor-contribution';
+import { assemble } from '../solve/assemble';
+import { directSolver, factorize } from '../linear-system';
 import { faultNetwork, faultPhases } from './fault-branches';
 import { busFaultTerminals } from './fault-terminals';
 import type { FaultOptions, FaultOutcomeSummary, FaultSolveResult, FaultSpec } from './fault-types';
@@ -25,6 +28,8 @@ export interface PreparedFaults {
   mods: Modifications;
   solution: Solution;
   fs: FaultSystem;
+  /** Motors that feed the fault through their subtransient reactance. */
+  motorIds: string[];
 }
 
 /** The sheet with every transformer's impedance at the low end of its tolerance (a shallow copy). */
@@ -42,8 +47,19 @@ export function prepareFaults(sheet: Sheet, mods: Modifications = NO_MODIFICATIO
   const outcome = solveBuiltNetwork(network, duty.settings, undefined, { constantImpedanceOnly: true });
   if (!outcome.ok) return outcome;
   const s = outcome.solution;
-  const fs: FaultSystem = { network, classes: s.classes, parts: s.parts, system: s.system, solver: outcome.solver, prefault: s.volts, columns: new Map() };
-  return { ok: true, prepared: { sheet: duty, mods, solution: s, fs } };
+  const motors = motorContribution(duty, network, s.volts, s.corrections);
+  if (!motors) {
+    const fs: FaultSystem = { network, classes: s.classes, parts: s.parts, system: s.system, solver: outcome.solver, prefault: s.volts, columns: new Map() };
+    return { ok: true, prepared: { sheet: duty, mods, solution: s, fs, motorIds: [] } };
+  }
+  // Motors behind X"d: the same pins, classes and parts, a new factorization; the pre-fault voltages are unchanged.
+  const system = assemble(motors.network, s.classes, s.parts);
+  const factored = factorize(system.matrix);
+  if (!factored.ok) return { ok: false, error: { code: 'singular', message: `the fault-time network (motors behind X"d) is singular: ${factored.message}`, elementIds: motors.motorIds } };
+  const solver = directSolver(factored.value);
+  const solution: Solution = { ...s, network: motors.network, system, corrections: motors.corrections };
+  const fs: FaultSystem = { network: motors.network, classes: s.classes, parts: s.parts, system, solver, prefault: s.volts, columns: new Map() };
+  return { ok: true, prepared: { sheet: duty, mods, solution, fs, motorIds: motors.motorIds } };
 }
 
 export function faultOhmsOf(spec: FaultSpec): Complex | string {
@@ -71,10 +87,16 @@ export function faultCase(fs: FaultSystem, spec: FaultSpec): CaseOutcome {
 }
 
 export const FAULT_ASSUMPTIONS = [
-  'Faults: loads are constant impedances at their rated-voltage admittance before and during the fault; motors add no subtransient contribution (not modelled yet).',
+  'Faults: loads are constant impedances at their rated-voltage admittance before and during the fault, except motors marked contributesToFaults.',
   'Faults: the asymmetrical peak is IEC 60909-0 κ = 1.02 + 0.98 e^(−3R/X) with R and X of the faulted loop (driving pre-fault voltage over the largest fault current).',
   'Faults: runs have no shunt capacitance, so a ground fault in a part with no path to earth draws no current (charging current is not modelled).',
 ];
+
+/** The assumption line for motors that feed faults, or undefined when none does. */
+export function motorAssumption(motorIds: string[]): string | undefined {
+  if (motorIds.length === 0) return undefined;
+  return `Faults: ${motorIds.length} motor${motorIds.length > 1 ? 's' : ''} (${motorIds.join(', ')}) feed the fault as sources behind their subtransient reactance X"d (default ${MOTOR_SUBTRANSIENT_DEFAULT_PU} pu on the motor's kVA, common practice), with the internal voltage that gives their pre-fault current; the first-cycle value, no decay.`;
+}
 
 /** A fault with the network-wide results during it (bus voltages, conductor currents, sources). */
 export function faultResult(prepared: PreparedFaults, spec: FaultSpec, warnings: ResultWarning[] = [], options: FaultOptions = {}): FaultOutcome {
@@ -87,6 +109,8 @@ export function faultResult(prepared: PreparedFaults, spec: FaultSpec, warnings:
   try {
     const result = deriveResults({ sheet, solution: { ...solution, volts, constantImpedanceVolts: volts }, mods, openNeutral: false, warnings, extraInjections });
     const assumptions = [...result.assumptions, ...FAULT_ASSUMPTIONS];
+    const motors = motorAssumption(prepared.motorIds);
+    if (motors) assumptions.push(motors);
     if (options.transformerTolerance) assumptions.push(`Faults: transformer impedances at ${(100 * (1 - TRANSFORMER_IMPEDANCE_TOLERANCE)).toFixed(1)} % of nameplate (the −7.5 % tolerance, for the maximum duty).`);
     return { ok: true, result: { ...result, assumptions, fault: { busId: spec.busId, ...c.summary } } };
   } catch (error) {

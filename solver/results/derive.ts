@@ -9,6 +9,7 @@ import { indexSolution, type ResultContext } from './context';
 import { busResult } from './bus-results';
 import { loadResult } from './load-results';
 import { runResult } from './run-results';
+import { feedTree, nonLinearShares } from '../solve/feed-tree';
 import { bondResults, breakerResult, electrodeResult, sourceResult, transformerResult } from './equipment-results';
 import { kclResidual, powerBalance } from './balance';
 import { standardLabel } from './standing';
@@ -52,7 +53,9 @@ export function deriveResults({ sheet, solution, mods, openNeutral, warnings, ex
   const elements = Object.values(sheet.elements);
   const buses = elements.flatMap((e) => (e.kind === 'bus' ? [busResult(ctx, e)] : []));
   const loads = elements.flatMap((e) => (e.kind === 'load' ? [loadResult(ctx, e)] : []));
-  const runs = elements.flatMap((e) => (e.kind === 'run' ? [runResult(ctx, e)].filter((r): r is RunResult => r !== undefined) : []));
+  // NEC 310.15(E)(3) counts a 4-wire wye neutral when most of the load downstream is non-linear.
+  const shares = nonLinearShares(sheet, feedTree(sheet), new Map(loads.map((l) => [l.loadId, l.kw])));
+  const runs = elements.flatMap((e) => (e.kind === 'run' ? [runResult(ctx, e, shares.get(e.id) ?? 0)].filter((r): r is RunResult => r !== undefined) : []));
   const breakers = elements.flatMap((e) => (e.kind === 'breaker' ? [breakerResult(ctx, e, mods.openPoles)] : []));
   const sources = elements.flatMap((e) => (e.kind === 'source' ? [sourceResult(ctx, e)] : []));
   const transformers = elements.flatMap((e) => (e.kind === 'transformer' ? [transformerResult(ctx, e)] : []));

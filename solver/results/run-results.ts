@@ -1,6 +1,7 @@
 // Each run's conductor currents (neutral and PE included) against their ampacity, its losses and voltage drop.
 import type { ConductorId, RunElement } from '../../shared/sheet';
-import { ampacity, neutralCountsAsCurrentCarrying } from '../conductors';
+import { ampacity, countCurrentCarrying } from '../conductors';
+import { DEFAULT_NON_LINEAR_MAJORITY } from '../solve/feed-tree';
 import type { RunLayout } from '../network/types';
 import type { ResultContext } from './context';
 import { absorbedVa } from './currents';
@@ -22,25 +23,30 @@ function neutralSystem(ctx: ResultContext, layout: RunLayout): 'wye-4-wire' | 's
   return Math.max(...mags) - Math.min(...mags) > 0.05 * Math.max(...mags) ? 'delta' : 'wye-4-wire';
 }
 
-function currentCarrying(ctx: ResultContext, run: RunElement, layout: RunLayout): number {
-  if (run.conductorsInRaceway !== undefined) return run.conductorsInRaceway;
+function currentCarrying(ctx: ResultContext, run: RunElement, layout: RunLayout, nonLinearFraction: number): number {
   const phases = layout.conductors.filter((k) => PHASES.includes(k.conductor)).length;
   const hasNeutral = layout.conductors.some((k) => k.conductor === 'N');
-  let count = phases;
-  if (hasNeutral && phases >= 1) {
-    count += neutralCountsAsCurrentCarrying({ system: neutralSystem(ctx, layout), phasesInCircuit: Math.min(phases, 3), nonLinearMajority: false }) ? 1 : 0;
-  }
-  return Math.max(count, 1);
+  return countCurrentCarrying({
+    phases,
+    hasNeutral,
+    ...(hasNeutral && phases > 0 ? { system: neutralSystem(ctx, layout) } : {}),
+    nonLinearMajority: nonLinearFraction > DEFAULT_NON_LINEAR_MAJORITY,
+    ...(run.conductorsInRaceway !== undefined ? { given: run.conductorsInRaceway } : {}),
+  }).count;
 }
 
-export function runResult(ctx: ResultContext, run: RunElement): RunResult | undefined {
+/** nonLinearFraction: the non-linear share of the kW downstream of the run (NEC 310.15(E)(3)). */
+export function runResult(ctx: ResultContext, run: RunElement, nonLinearFraction = 0): RunResult | undefined {
   const { network, volts } = ctx.solution;
   const stampIndex = (ctx.stampsByElement.get(run.id) ?? []).find((k) => network.stamps[k].kind === 'run');
   const layout = stampIndex === undefined ? undefined : network.runs.find((r) => r.stampIndex === stampIndex);
   if (!layout) return undefined;
   const currents = ctx.currents.perStamp[layout.stampIndex];
-  const count = currentCarrying(ctx, run, layout);
+  const count = currentCarrying(ctx, run, layout, nonLinearFraction);
   const result: RunResult = { runId: run.id, name: run.name, conductors: {}, lossKw: absorbedVa(network, layout.stampIndex, volts, ctx.currents).re / 1000 };
+  if (layout.conductors.some((k) => k.conductor === 'N') && layout.conductors.some((k) => PHASES.includes(k.conductor))) {
+    result.neutralSystem = neutralSystem(ctx, layout);
+  }
   layout.conductors.forEach((k, i) => {
     const current = phasor(currents[i].re, currents[i].im);
     const entry: RunResult['conductors'][ConductorId] = { current, open: k.open, addedOhms: k.addedOhms };
@@ -56,7 +62,7 @@ export function runResult(ctx: ResultContext, run: RunElement): RunResult | unde
     }
     result.conductors[k.conductor] = entry;
   });
-  // Drop along the run of each phase's voltage to the neutral (line-to-line without one), percent of nominal.
+  // Drop along the run (in the direction of the supply) of each phase's voltage to the neutral (line-to-line without one), percent of nominal.
   const byId = new Map(layout.conductors.map((k) => [k.conductor, k]));
   const n = byId.get('N');
   const drops: number[] = [];
@@ -73,6 +79,13 @@ export function runResult(ctx: ResultContext, run: RunElement): RunResult | unde
     const to = magnitude(minus(pinVolts(volts, kp.toPin), pinVolts(volts, kq.toPin)));
     drops.push((100 * (from - to)) / nominal);
   }
-  if (drops.length) result.voltageDropPercent = Math.max(...drops);
+  // Power flows into the run at its 'from' end unless the run is drawn against the supply: then the drop is to → from.
+  let pFrom = 0;
+  layout.conductors.forEach((k, i) => {
+    const v = pinVolts(volts, k.fromPin);
+    pFrom += v.re * currents[i].re + v.im * currents[i].im;
+  });
+  if (pFrom < 0) result.fedFrom = 'to';
+  if (drops.length) result.voltageDropPercent = pFrom < 0 ? Math.max(...drops.map((d) => -d)) : Math.max(...drops);
   return result;
 }

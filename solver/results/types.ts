@@ -95,8 +95,12 @@ export interface RunResult {
   name: string;
   conductors: Partial<Record<ConductorId, RunConductorResult>>;
   lossKw: number;
-  /** Largest drop along the run of a phase-to-neutral (or line-to-line) voltage, percent of nominal. */
+  /** Largest drop along the run, in the direction of the supply, of a phase-to-neutral (or line-to-line) voltage, percent of nominal. */
   voltageDropPercent?: number;
+  /** 'to' when real power enters the run at its 'to' end (drawn against the supply); absent otherwise. */
+  fedFrom?: 'to';
+  /** With a neutral and a phase: the system the neutral belongs to, read from the nominal phase angles (NEC 310.15(E)). */
+  neutralSystem?: 'wye-4-wire' | 'split-phase' | 'delta';
 }
 
 export interface BreakerResult {

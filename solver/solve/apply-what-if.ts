@@ -50,7 +50,7 @@ export function applyWhatIf(sheet: Sheet, whatIfId: string | undefined): WhatIfO
       const problem = changeProblem(sheet, change);
       if (problem) return { ok: false, code: 'not-supported', message: `what-if ${whatIfId}, change ${changeId}: ${problem}`, elementIds: [change.busId] };
       const phases = (['A', 'B', 'C'] as const).filter((p) => change.phases?.[p]);
-      fault = { busId: change.busId, faultType: change.faultType, to: change.to, faultOhms: change.faultOhms, ...(phases.length ? { phases } : {}) };
+      fault = { busId: change.busId, faultType: change.faultType, to: change.to, faultOhms: { re: change.faultOhms, im: change.faultReactanceOhms }, ...(phases.length ? { phases } : {}) };
       continue;
     }
     const problem = changeProblem(sheet, change);

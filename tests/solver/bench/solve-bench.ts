@@ -1,9 +1,10 @@
 // Benchmark (prints figures, asserts nothing): a synthetic 208Y/120 building of N panels, solved as a base case,
-// as a what-if opening one feeder neutral through the base factors, and as a fresh solve of the same opening.
+// as a what-if opening one feeder neutral through the base factors, and as a fresh solve of the same opening; and
+// the loading study over the base result.
 // Run: npx tsx tests/solver/bench/solve-bench.ts [panels...]
 import { performance } from 'node:perf_hooks';
 import { validateSheet, type Sheet } from '../../../shared/sheet';
-import { SheetSolver, solveSheet } from '../../../solver';
+import { SheetSolver, loadingStudyOf, solveSheet } from '../../../solver';
 import { SheetBuilder, customRun } from '../helpers/sheet-builder';
 
 function building(panels: number, openFirstNeutral = false): Sheet {
@@ -67,10 +68,12 @@ for (const panels of sizes.length ? sizes : [20, 100, 400]) {
   if (!viaBase.last.r.ok || !fresh.last.ok) throw new Error('what-if failed');
   const whatIfMs = viaBase.last.ms;
   const b = base.last.result;
+  const study = time(repeat, () => loadingStudyOf(sheet, b));
   console.log(
     `${panels} panels: ${b.linearSolve.unknowns} unknowns, ${b.linearSolve.nonzeros} nonzeros, ${b.loads.length} loads; ` +
       `base ${base.ms.toFixed(1)} ms (${b.convergence.iterations} iterations, ${b.convergence.method}); ` +
       `what-if through base factors ${whatIfMs.toFixed(1)} ms (${viaBase.last.r.result.linearSolve.method}, ${viaBase.last.r.result.convergence.iterations} iterations); ` +
-      `fresh solve of the same opening ${fresh.ms.toFixed(1)} ms; ratio ${(fresh.ms / whatIfMs).toFixed(2)}`,
+      `fresh solve of the same opening ${fresh.ms.toFixed(1)} ms; ratio ${(fresh.ms / whatIfMs).toFixed(2)}; ` +
+      `loading study over the base result ${study.ms.toFixed(1)} ms (${study.last.conductors.length} conductors)`,
   );
 }
