@@ -10,3 +10,6 @@ export type * from './faults/fault-types';
 export { faultStudy, testXOverR, type FaultStudyOptions, type FaultStudyResult, type FaultStudyCase, type DutyCheck, type DutyStatus, type ServiceMarking } from './faults/fault-study';
 export { loadingStudy, loadingStudyOf, LOADING_STUDY_NOTES } from './studies';
 export type * from './studies/types';
+export { breakSweep, breakSweepSync } from './studies/break-sweep';
+export { readingsMatch, readingsMatchSync } from './studies/readings-match';
+export type * from './studies/study-types';

@@ -200,7 +200,7 @@ export function queryFaultCases(rows: readonly FaultCaseRow[], query: TableQuery
 
 /** The what-if that shows a case on the drawing: the same fault the study solved (bolted, to the bus's ground bar). */
 export function faultCaseChange(row: Pick<FaultCaseRow, 'busId' | 'faultType'>): WhatIfChange {
-  return { kind: 'shunt-fault', busId: row.busId, faultType: row.faultType, to: 'PE', faultOhms: 0 };
+  return { kind: 'shunt-fault', busId: row.busId, faultType: row.faultType, to: 'PE', faultOhms: 0, faultReactanceOhms: 0 };
 }
 
 /** How a standing is drawn (the tag standings of the drawing: tint and outline). */

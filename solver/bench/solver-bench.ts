@@ -1,5 +1,6 @@
 // Command-line benchmark of the sparse complex LU on four-wire networks, with mathjs's sparse and dense LU as
-// yardsticks. Run with `npm run bench:solver` (optionally followed by bus counts, e.g. `-- 100 1000`).
+// yardsticks, then the studies (break sweep, fault study) on a 1,000-bus sheet. Run with `npm run bench:solver`
+// (optionally followed by bus counts, e.g. `-- 100 1000`; `-- --studies [buses]` for the studies alone).
 import { loadavg, cpus } from 'node:os';
 import { performance } from 'node:perf_hooks';
 import { setFlagsFromString } from 'node:v8';
@@ -17,6 +18,7 @@ import {
   type NumericLu,
   type SymbolicLu,
 } from '../sparse';
+import { studyBench } from './study-bench';
 import { assemble, deepRun, generateNetwork, mulberry32, openConductor, type Topology } from './four-wire-network';
 
 const MATHJS_BUDGET_MS = 10_000;
@@ -273,6 +275,12 @@ function printTable(rows: string[][]): void {
 }
 
 function main(): void {
+  // `-- --studies [buses]` runs only the studies part (break sweep, fault study) on a sheet of that many buses.
+  const studiesAt = process.argv.indexOf('--studies');
+  if (studiesAt >= 0) {
+    studyBench(Number(process.argv[studiesAt + 1]) || 1_000);
+    return;
+  }
   const argSizes = process.argv.slice(2).map(Number).filter((v) => Number.isInteger(v) && v >= 3);
   const sizes = argSizes.length ? argSizes : DEFAULT_SIZES;
   const started = performance.now();
@@ -367,6 +375,7 @@ function main(): void {
         `(${withoutCheck.toFixed(2)} without its residual check) (target ≤ 0.10): ${ratio <= 0.1 ? 'met' : 'NOT met'}`,
     );
   }
+  studyBench(1_000);
   console.log(`\nTotal benchmark time ${((performance.now() - started) / 1000).toFixed(0)} s`);
 }
 

@@ -161,7 +161,7 @@ describe('the study session', () => {
     studies.showFaultCase({ busId: 'apt-3', busName: 'Apartment 3', faultType: 'line-to-ground' });
     const ui = session.ui.get();
     expect(ui.whatIfId).toBeNull();
-    expect(ui.trialChanges).toEqual([{ kind: 'shunt-fault', busId: 'apt-3', faultType: 'line-to-ground', to: 'PE', faultOhms: 0 }]);
+    expect(ui.trialChanges).toEqual([{ kind: 'shunt-fault', busId: 'apt-3', faultType: 'line-to-ground', to: 'PE', faultOhms: 0, faultReactanceOhms: 0 }]);
     expect(shownFaultKey(ui.trialChanges)).toBe('apt-3|line-to-ground');
     expect(said.at(-1)).toContain('Line to ground fault at Apartment 3');
     studies.clearCase();

@@ -1,0 +1,81 @@
+// The studies part of `npm run bench:solver`: a break sweep over every conductor of a generated building sheet, and
+// a fault study of every bus by the five fault types, with the base solve, a fresh what-if solve and a single fault
+// as yardsticks. Prints figures and ratios; asserts nothing.
+import { cpus, loadavg } from 'node:os';
+import { performance } from 'node:perf_hooks';
+import { SHUNT_FAULT_TYPES } from '../../shared/sheet';
+import { breakSweepSync, faultStudy, solveFault, solveSheet } from '../index';
+import { buildingSheet } from './building-sheet';
+
+const cpuMs = (): number => {
+  const u = process.cpuUsage();
+  return (u.user + u.system) / 1000;
+};
+
+function timed<T>(fn: () => T): { ms: number; cpu: number; value: T } {
+  const c0 = cpuMs();
+  const t0 = performance.now();
+  const value = fn();
+  return { ms: performance.now() - t0, cpu: cpuMs() - c0, value };
+}
+
+const load = (): string => loadavg().map((v) => v.toFixed(1)).join(' / ');
+const ms = (v: number): string => (v < 10 ? v.toFixed(2) : v < 100 ? v.toFixed(1) : v.toFixed(0));
+
+export function studyBench(buses = 1_000): void {
+  console.log(`\nStudies on a generated 208Y/120 building sheet of ${buses} buses (solver/bench/building-sheet.ts) — ${cpus().length} cores`);
+  console.log(`load average (1 / 5 / 15 min) at start: ${load()}; the machine is shared, so CPU time is printed beside wall time.`);
+  const sheet = buildingSheet(buses);
+  // Warm the JIT on a small sheet.
+  const warm = buildingSheet(40, 2);
+  breakSweepSync(warm, { refineWorst: 2 });
+  faultStudy(warm);
+
+  const base = timed(() => solveSheet(sheet));
+  if (!base.value.ok) throw new Error(base.value.error.message);
+  const b = base.value.result;
+  console.log(
+    `base solve (build, solve, results): ${ms(base.ms)} ms wall, ${ms(base.cpu)} ms CPU; ${b.linearSolve.unknowns} unknowns, ` +
+      `${b.loads.length} loads, ${b.convergence.iterations} load iterations`,
+  );
+
+  for (const refineWorst of [0, 10]) {
+    const sweep = timed(() => breakSweepSync(sheet, { refineWorst }));
+    if (!sweep.value.ok) throw new Error(sweep.value.error.message);
+    const s = sweep.value.value;
+    const full = s.cases.filter((c) => c.method === 'full-solve').length;
+    const worst = s.cases[0];
+    console.log(
+      `break sweep, every conductor, constant-impedance cases${refineWorst ? `, worst ${refineWorst} again with the load laws` : ''}: ` +
+        `${s.total} cases in ${ms(sweep.ms)} ms wall, ${ms(sweep.cpu)} ms CPU (target < 2000 ms: ${sweep.ms < 2000 ? 'met' : sweep.cpu < 2000 ? 'NOT met in wall time, met in CPU time' : 'NOT met'}); ` +
+        `${ms((sweep.ms - 0) / s.total)} ms per case including the base factorization; ${full} fresh solves; worst ${worst.runId} ${worst.conductor} ` +
+        `(${worst.severityPercent.toFixed(1)} % beyond Range A)`,
+    );
+    if (refineWorst === 0) {
+      // One what-if solved the ordinary way, for the ratio.
+      const one = { ...sheet, whatIfs: { w: { id: 'w', name: 'w', changes: { o: worst.change } } } };
+      const fresh = timed(() => solveSheet(one, { whatIfId: 'w' }));
+      console.log(
+        `  one opening solved as a fresh what-if: ${ms(fresh.ms)} ms; the sweep did ${s.total} for ${(sweep.ms / fresh.ms).toFixed(1)} of those ` +
+          `(${((fresh.ms * s.total) / sweep.ms).toFixed(0)}× faster than solving each afresh)`,
+      );
+    }
+  }
+
+  const busIds = Object.values(sheet.elements).filter((e) => e.kind === 'bus').map((e) => e.id);
+  const study = timed(() => faultStudy(sheet));
+  if (!study.value.ok) throw new Error(study.value.error.message);
+  const f = study.value.study;
+  const problems = f.cases.filter((c) => c.problem).length;
+  console.log(
+    `fault study, ${busIds.length} buses × ${SHUNT_FAULT_TYPES.length} fault types: ${f.cases.length} cases in ${ms(study.ms)} ms wall, ${ms(study.cpu)} ms CPU ` +
+      `(target < 2000 ms: ${study.ms < 2000 ? 'met' : study.cpu < 2000 ? 'NOT met in wall time, met in CPU time' : 'NOT met'}); ${ms(study.ms / f.cases.length)} ms per fault; ` +
+      `${problems} cases without figures; ${f.duties.length} duty checks`,
+  );
+  const single = timed(() => solveFault(sheet, { busId: busIds[busIds.length - 1], faultType: 'line-to-ground' }));
+  console.log(
+    `  one fault solved alone (factorization and network-wide results): ${ms(single.ms)} ms; ` +
+      `the study did ${f.cases.length} for ${(study.ms / single.ms).toFixed(1)} of those`,
+  );
+  console.log(`load average at end: ${load()}`);
+}

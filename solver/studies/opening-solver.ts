@@ -1,0 +1,507 @@
+// Opening one conductor of a run, solved through the base factors. A run is a two-port [[Y, −Y], [−Y, Y]] over its
+// from and to pins, so opening conductor k changes the scaled matrix by U D Uᵀ, with D = Y_open − Y (c×c, one
+// entry for a run without mutual coupling) and column i of U = s_f e_f − s_t e_t (the classes of conductor i's two
+// ends, scaled by their zone voltages). The known voltages on the right-hand side move by −U D w, w_i the difference
+// of the two ends' offsets. Woodbury: with W = A⁻¹U and K = I + D UᵀW, (A + U D Uᵀ)⁻¹ b = A⁻¹b − W K⁻¹ D Uᵀ A⁻¹b.
+// Every answer is checked by its residual on the opened system. K singular means the opening leaves part of the
+// network floating or cut off (it would need a reference tie): the caller solves that case afresh.
+import type { BuiltNetwork } from '../network/build-network';
+import { runAdmittance } from '../network/run';
+import type { RunLayout } from '../network/types';
+import type { ComplexCsc, LinearSolver, Outcome, ComplexVector } from '../linear-system';
+import { analyse } from '../sparse/symbolic';
+import { factor, type NumericLu } from '../sparse/lu';
+import { cachedRowAbsSums, maxOf, multiplyInto } from '../sparse/residual';
+import { lowerSolveInPlace, permuteColumns, permuteRows, upperSolveInPlace } from '../sparse/solve';
+import { createSparseWorkspace, lowerSolveUnit, type SparseWorkspace } from '../sparse/sparse-rhs';
+import { denseComplexSolveInPlace } from '../sparse/dense-complex';
+import type { PinClasses } from '../solve/classes';
+import type { AssembledSystem } from '../solve/assemble';
+
+/** Largest accepted relative residual of an answer through the base factors (as the what-if machinery). */
+export const OPENING_RESIDUAL_TOLERANCE = 1e-10;
+/** Below this share of its terms a pivot of K has lost too many digits (as solveWithBlockUpdate). */
+const PIVOT_FLOOR = 1e-8;
+
+/** The update of one opening: m columns of U and the m×m D, row-major. */
+export interface OpeningUpdate {
+  m: number;
+  fromClass: Int32Array;
+  toClass: Int32Array;
+  fromScale: Float64Array;
+  toScale: Float64Array;
+  dRe: Float64Array;
+  dIm: Float64Array;
+  /** Offsets of the ends, V_f − V_t of the known parts. */
+  wRe: Float64Array;
+  wIm: Float64Array;
+}
+
+interface Capacitance {
+  kRe: Float64Array;
+  kIm: Float64Array;
+  termScale: number;
+}
+
+export type OpeningOutcome = { ok: true; residual: number } | { ok: false; reason: 'singular' | 'residual'; residual?: number };
+
+/** Holds the base factors and scratch space for every opening of a sweep: no allocation per case beyond tiny arrays. */
+export class OpeningSolver {
+  readonly n: number;
+  private readonly maxM: number;
+  private readonly wRe: Float64Array[];
+  private readonly wIm: Float64Array[];
+  private readonly tmpRe: Float64Array;
+  private readonly tmpIm: Float64Array;
+  private readonly unitRe: Float64Array;
+  private readonly unitIm: Float64Array;
+  private readonly rRe: Float64Array;
+  private readonly rIm: Float64Array;
+  private readonly bRe: Float64Array;
+  private readonly bIm: Float64Array;
+  private readonly aNorm: number;
+  /** The base matrix without its explicit zeros, and its own factors (sparser: see the constructor). */
+  readonly matrix: ComplexCsc;
+  private readonly lu: NumericLu;
+  private readonly ws: SparseWorkspace;
+
+  constructor(
+    readonly network: BuiltNetwork,
+    readonly classes: PinClasses,
+    readonly system: AssembledSystem,
+  ) {
+    // The assembled pattern keeps explicit zeros (the uncoupled entries of every run block) so that what-ifs reuse
+    // one analysis; here no pattern is reused, so they go, and the factors, products and solves get cheaper.
+    this.matrix = withoutExplicitZeros(system.matrix);
+    this.lu = factor(analyse(this.matrix), this.matrix);
+    this.n = this.matrix.n;
+    this.ws = createSparseWorkspace(this.n);
+    // One more column than the widest run: the tie that holds a cut-off part (see withTie).
+    this.maxM = network.runs.reduce((m, r) => Math.max(m, r.conductors.length), 1) + 1;
+    const arrays = () => Array.from({ length: this.maxM }, () => new Float64Array(this.n));
+    this.wRe = arrays();
+    this.wIm = arrays();
+    [this.tmpRe, this.tmpIm, this.unitRe, this.unitIm, this.rRe, this.rIm, this.bRe, this.bIm] = Array.from({ length: 8 }, () => new Float64Array(this.n));
+    this.aNorm = maxOf(cachedRowAbsSums(this.matrix));
+  }
+
+  /** The update that opens conductor `index` of a run, or undefined when it is open already or changes nothing. */
+  update(layout: RunLayout, index: number): OpeningUpdate | undefined {
+    const conductors = layout.conductors;
+    if (conductors[index].open) return undefined;
+    const stamp = this.network.stamps[layout.stampIndex];
+    const c = conductors.length;
+    // D = Y_open − Y over the run's conductors; without mutual coupling Y is diagonal and only (index, index) changes.
+    let rows: number[];
+    let d: (i: number, j: number) => { re: number; im: number };
+    if (!layout.mutualCoupling) {
+      rows = [index];
+      const y = stamp.y[index][index];
+      d = () => ({ re: -y.re, im: -y.im });
+    } else {
+      const open = conductors.map((k, i) => k.open || i === index);
+      const yOpen = runAdmittance(layout.impedanceOhms, open, conductors.map((k) => k.addedOhms));
+      rows = [...Array(c).keys()];
+      d = (i, j) => ({ re: yOpen[i][j].re - stamp.y[i][j].re, im: yOpen[i][j].im - stamp.y[i][j].im });
+    }
+    const { classOf, offsetRe, offsetIm } = this.classes;
+    const scale = this.system.scale;
+    // Conductors whose two ends are one class (or both earth) contribute nothing.
+    const used = rows.filter((i) => classOf[conductors[i].fromPin] !== classOf[conductors[i].toPin]);
+    const m = used.length;
+    if (m === 0) return undefined;
+    const u: OpeningUpdate = {
+      m,
+      fromClass: new Int32Array(m),
+      toClass: new Int32Array(m),
+      fromScale: new Float64Array(m),
+      toScale: new Float64Array(m),
+      dRe: new Float64Array(m * m),
+      dIm: new Float64Array(m * m),
+      wRe: new Float64Array(m),
+      wIm: new Float64Array(m),
+    };
+    used.forEach((i, a) => {
+      const { fromPin, toPin } = conductors[i];
+      const cf = classOf[fromPin];
+      const ct = classOf[toPin];
+      u.fromClass[a] = cf;
+      u.toClass[a] = ct;
+      u.fromScale[a] = cf >= 0 ? scale[cf] : 0;
+      u.toScale[a] = ct >= 0 ? scale[ct] : 0;
+      u.wRe[a] = offsetRe[fromPin] - offsetRe[toPin];
+      u.wIm[a] = offsetIm[fromPin] - offsetIm[toPin];
+      used.forEach((j, b) => {
+        const v = d(i, j);
+        u.dRe[a * m + b] = v.re;
+        u.dIm[a * m + b] = v.im;
+      });
+    });
+    let any = false;
+    for (let t = 0; t < m * m; t++) if (u.dRe[t] !== 0 || u.dIm[t] !== 0) any = true;
+    return any ? u : undefined;
+  }
+
+  /** The base answer A⁻¹ b (a new vector). */
+  solveBase(bRe: Float64Array, bIm: Float64Array): ComplexVector {
+    const x = { re: new Float64Array(this.n), im: new Float64Array(this.n) };
+    this.baseSolve(bRe, bIm, x.re, x.im);
+    return x;
+  }
+
+  /** out = A⁻¹ b with the base factors, through the scratch arrays. */
+  private baseSolve(bRe: Float64Array, bIm: Float64Array, outRe: Float64Array, outIm: Float64Array): void {
+    const lu = this.lu;
+    permuteRows(lu, bRe, bIm, this.tmpRe, this.tmpIm);
+    lowerSolveInPlace(lu, this.tmpRe, this.tmpIm);
+    upperSolveInPlace(lu, this.tmpRe, this.tmpIm);
+    permuteColumns(lu, this.tmpRe, this.tmpIm, outRe, outIm);
+  }
+
+  /**
+   * W = A⁻¹ U into the column scratch. Each column has two nonzeros, so its forward half is two sparse unit solves
+   * (only the reach of each entry in L); the back substitution is dense.
+   */
+  private columns(u: OpeningUpdate): void {
+    const lu = this.lu;
+    const { tmpRe, tmpIm } = this;
+    for (let a = 0; a < u.m; a++) {
+      tmpRe.fill(0);
+      tmpIm.fill(0);
+      for (const [c, s] of [
+        [u.fromClass[a], u.fromScale[a]],
+        [u.toClass[a], -u.toScale[a]],
+      ]) {
+        if (c < 0 || s === 0) continue;
+        const v = lowerSolveUnit(lu, this.ws, lu.rowPivot[c]);
+        for (let t = 0; t < v.idx.length; t++) {
+          tmpRe[v.idx[t]] += s * v.re[t];
+          tmpIm[v.idx[t]] += s * v.im[t];
+        }
+      }
+      upperSolveInPlace(lu, tmpRe, tmpIm);
+      permuteColumns(lu, tmpRe, tmpIm, this.wRe[a], this.wIm[a]);
+    }
+  }
+
+  /** (Uᵀ v)_a. */
+  private static project(u: OpeningUpdate, a: number, vRe: Float64Array, vIm: Float64Array): { re: number; im: number } {
+    const cf = u.fromClass[a];
+    const ct = u.toClass[a];
+    let re = 0;
+    let im = 0;
+    if (cf >= 0) {
+      re += u.fromScale[a] * vRe[cf];
+      im += u.fromScale[a] * vIm[cf];
+    }
+    if (ct >= 0) {
+      re -= u.toScale[a] * vRe[ct];
+      im -= u.toScale[a] * vIm[ct];
+    }
+    return { re, im };
+  }
+
+  /** K = I + D UᵀW (row-major), with the scale of its terms for the pivot floor. */
+  private capacitance(u: OpeningUpdate): Capacitance {
+    const m = u.m;
+    const gRe = new Float64Array(m * m);
+    const gIm = new Float64Array(m * m);
+    for (let b = 0; b < m; b++) {
+      for (let a = 0; a < m; a++) {
+        const g = OpeningSolver.project(u, a, this.wRe[b], this.wIm[b]);
+        gRe[a * m + b] = g.re;
+        gIm[a * m + b] = g.im;
+      }
+    }
+    const kRe = new Float64Array(m * m);
+    const kIm = new Float64Array(m * m);
+    let termScale = 1;
+    for (let a = 0; a < m; a++) {
+      for (let b = 0; b < m; b++) {
+        let sr = a === b ? 1 : 0;
+        let si = 0;
+        let terms = a === b ? 1 : 0;
+        for (let c = 0; c < m; c++) {
+          const dr = u.dRe[a * m + c];
+          const di = u.dIm[a * m + c];
+          const gr = gRe[c * m + b];
+          const gi = gIm[c * m + b];
+          sr += dr * gr - di * gi;
+          si += dr * gi + di * gr;
+          terms += Math.hypot(dr, di) * Math.hypot(gr, gi);
+        }
+        if (terms > termScale) termScale = terms;
+        kRe[a * m + b] = sr;
+        kIm[a * m + b] = si;
+      }
+    }
+    return { kRe, kIm, termScale };
+  }
+
+  /** z = K⁻¹ D Uᵀ y, or undefined when K is singular to working precision. */
+  private static correction(u: OpeningUpdate, k: Capacitance, yRe: Float64Array, yIm: Float64Array) {
+    const m = u.m;
+    const zRe = new Float64Array(m);
+    const zIm = new Float64Array(m);
+    const py = Array.from({ length: m }, (_, c) => OpeningSolver.project(u, c, yRe, yIm));
+    for (let a = 0; a < m; a++) {
+      for (let c = 0; c < m; c++) {
+        const dr = u.dRe[a * m + c];
+        const di = u.dIm[a * m + c];
+        zRe[a] += dr * py[c].re - di * py[c].im;
+        zIm[a] += dr * py[c].im + di * py[c].re;
+      }
+    }
+    const ok = denseComplexSolveInPlace(m, k.kRe.slice(), k.kIm.slice(), zRe, zIm, PIVOT_FLOOR * k.termScale);
+    return ok ? { zRe, zIm } : undefined;
+  }
+
+  /** b + Δb of the opened system (Δb = −U D w) into `into`. */
+  openedRhs(u: OpeningUpdate, bRe: Float64Array, bIm: Float64Array, intoRe: Float64Array, intoIm: Float64Array): void {
+    intoRe.set(bRe);
+    intoIm.set(bIm);
+    const m = u.m;
+    for (let a = 0; a < m; a++) {
+      let tr = 0;
+      let ti = 0;
+      for (let c = 0; c < m; c++) {
+        const dr = u.dRe[a * m + c];
+        const di = u.dIm[a * m + c];
+        tr += dr * u.wRe[c] - di * u.wIm[c];
+        ti += dr * u.wIm[c] + di * u.wRe[c];
+      }
+      if (tr === 0 && ti === 0) continue;
+      const cf = u.fromClass[a];
+      const ct = u.toClass[a];
+      if (cf >= 0) {
+        intoRe[cf] -= u.fromScale[a] * tr;
+        intoIm[cf] -= u.fromScale[a] * ti;
+      }
+      if (ct >= 0) {
+        intoRe[ct] += u.toScale[a] * tr;
+        intoIm[ct] += u.toScale[a] * ti;
+      }
+    }
+  }
+
+  /** Relative residual of x on (A + U D Uᵀ) x = b (b already the opened right-hand side). */
+  residual(u: OpeningUpdate, x: ComplexVector, bRe: Float64Array, bIm: Float64Array): number {
+    const { rRe, rIm } = this;
+    multiplyInto(this.matrix, x.re, x.im, rRe, rIm);
+    const n = this.n;
+    const m = u.m;
+    const px = Array.from({ length: m }, (_, c) => OpeningSolver.project(u, c, x.re, x.im));
+    for (let a = 0; a < m; a++) {
+      let tr = 0;
+      let ti = 0;
+      for (let c = 0; c < m; c++) {
+        const dr = u.dRe[a * m + c];
+        const di = u.dIm[a * m + c];
+        tr += dr * px[c].re - di * px[c].im;
+        ti += dr * px[c].im + di * px[c].re;
+      }
+      const cf = u.fromClass[a];
+      const ct = u.toClass[a];
+      if (cf >= 0) {
+        rRe[cf] += u.fromScale[a] * tr;
+        rIm[cf] += u.fromScale[a] * ti;
+      }
+      if (ct >= 0) {
+        rRe[ct] -= u.toScale[a] * tr;
+        rIm[ct] -= u.toScale[a] * ti;
+      }
+    }
+    // One pass for ||r||∞, ||x||∞ and ||b||∞; ||A + UDUᵀ||∞ is taken as the base's (an opening lowers a few entries).
+    let worst = 0;
+    let xMax = 0;
+    let bMax = 0;
+    for (let i = 0; i < n; i++) {
+      const vr = rRe[i] - bRe[i];
+      const vi = rIm[i] - bIm[i];
+      const v = vr * vr + vi * vi;
+      if (v > worst) worst = v;
+      const xv = x.re[i] * x.re[i] + x.im[i] * x.im[i];
+      if (xv > xMax) xMax = xv;
+      const bv = bRe[i] * bRe[i] + bIm[i] * bIm[i];
+      if (bv > bMax) bMax = bv;
+    }
+    const denominator = this.aNorm * Math.sqrt(xMax) + Math.sqrt(bMax);
+    if (denominator === 0) return worst === 0 ? 0 : Infinity;
+    return Math.sqrt(worst) / denominator;
+  }
+
+  /**
+   * W and K for an opening. When K is singular the opening cut a part off from every source (a PE bar and those
+   * beyond it, say); the fresh solve pins such a part at zero with a tie on each class, so the same answer comes
+   * from one tie on the cut-off side's end of the conductor: try each end. The caller checks that the tie carries
+   * nothing (x there is zero), which is what makes it the same answer.
+   */
+  private prepareUpdate(u: OpeningUpdate): { u: OpeningUpdate; k: Capacitance; tieClass: number } | undefined {
+    this.columns(u);
+    const k = this.capacitance(u);
+    if (OpeningSolver.nonsingular(u, k)) return { u, k, tieClass: -1 };
+    for (const c of new Set([u.toClass[0], u.fromClass[0]])) {
+      if (c < 0) continue;
+      const tied = this.withTie(u, c);
+      this.columns(tied);
+      const kt = this.capacitance(tied);
+      if (OpeningSolver.nonsingular(tied, kt)) return { u: tied, k: kt, tieClass: c };
+    }
+    return undefined;
+  }
+
+  private static nonsingular(u: OpeningUpdate, k: Capacitance): boolean {
+    return denseComplexSolveInPlace(u.m, k.kRe.slice(), k.kIm.slice(), new Float64Array(u.m), new Float64Array(u.m), PIVOT_FLOOR * k.termScale);
+  }
+
+  /** The update plus a tie of the class's own diagonal size from class c to the reference. */
+  private withTie(u: OpeningUpdate, c: number): OpeningUpdate {
+    const m = u.m + 1;
+    const grow = (a: Float64Array, extra: number) => Float64Array.from([...a, extra]);
+    const dRe = new Float64Array(m * m);
+    const dIm = new Float64Array(m * m);
+    for (let a = 0; a < u.m; a++) {
+      for (let b = 0; b < u.m; b++) {
+        dRe[a * m + b] = u.dRe[a * u.m + b];
+        dIm[a * m + b] = u.dIm[a * u.m + b];
+      }
+    }
+    const diagonal = this.diagonal(c);
+    dRe[m * m - 1] = diagonal > 0 ? diagonal : 1;
+    return {
+      m,
+      fromClass: Int32Array.from([...u.fromClass, c]),
+      toClass: Int32Array.from([...u.toClass, -1]),
+      fromScale: grow(u.fromScale, 1),
+      toScale: grow(u.toScale, 0),
+      dRe,
+      dIm,
+      wRe: grow(u.wRe, 0),
+      wIm: grow(u.wIm, 0),
+    };
+  }
+
+  private diagonal(c: number): number {
+    const a = this.matrix;
+    for (let p = a.colPtr[c]; p < a.colPtr[c + 1]; p++) if (a.rowIdx[p] === c) return Math.hypot(a.re[p], a.im[p]);
+    return 0;
+  }
+
+  /** A tie's class must sit at zero (to the last digits) for the tied answer to be the opened network's. */
+  private static tieCarriesNothing(tieClass: number, x: ComplexVector): boolean {
+    if (tieClass < 0) return true;
+    let largest = 0;
+    for (let i = 0; i < x.re.length; i++) largest = Math.max(largest, Math.abs(x.re[i]), Math.abs(x.im[i]));
+    return Math.hypot(x.re[tieClass], x.im[tieClass]) <= 1e-9 * largest;
+  }
+
+  /**
+   * The opened system's answer for the base right-hand side b whose base answer x0 = A⁻¹ b is known:
+   * x = x0 − W (D w + K⁻¹ D Uᵀ (x0 − W D w)). One base solve per column of U.
+   */
+  solveFromBase(opening: OpeningUpdate, bRe: Float64Array, bIm: Float64Array, x0: ComplexVector, out: ComplexVector): OpeningOutcome {
+    const prepared = this.prepareUpdate(opening);
+    if (!prepared) return { ok: false, reason: 'singular' };
+    const { u, k, tieClass } = prepared;
+    const m = u.m;
+    // t0 = D w; y = x0 − W t0 (formed in out).
+    const t0Re = new Float64Array(m);
+    const t0Im = new Float64Array(m);
+    for (let a = 0; a < m; a++) {
+      for (let c = 0; c < m; c++) {
+        const dr = u.dRe[a * m + c];
+        const di = u.dIm[a * m + c];
+        t0Re[a] += dr * u.wRe[c] - di * u.wIm[c];
+        t0Im[a] += dr * u.wIm[c] + di * u.wRe[c];
+      }
+    }
+    out.re.set(x0.re);
+    out.im.set(x0.im);
+    this.subtractColumns(m, t0Re, t0Im, out);
+    const z = OpeningSolver.correction(u, k, out.re, out.im);
+    if (!z) return { ok: false, reason: 'singular' };
+    this.subtractColumns(m, z.zRe, z.zIm, out);
+    if (!OpeningSolver.tieCarriesNothing(tieClass, out)) return { ok: false, reason: 'singular' };
+    this.openedRhs(u, bRe, bIm, this.bRe, this.bIm);
+    const residual = this.residual(u, out, this.bRe, this.bIm);
+    return residual <= OPENING_RESIDUAL_TOLERANCE ? { ok: true, residual } : { ok: false, reason: 'residual', residual };
+  }
+
+  /** out ← out − W t. */
+  private subtractColumns(m: number, tRe: Float64Array, tIm: Float64Array, out: ComplexVector): void {
+    const n = this.n;
+    for (let b = 0; b < m; b++) {
+      const tr = tRe[b];
+      const ti = tIm[b];
+      if (tr === 0 && ti === 0) continue;
+      const gRe = this.wRe[b];
+      const gIm = this.wIm[b];
+      for (let i = 0; i < n; i++) {
+        out.re[i] -= gRe[i] * tr - gIm[i] * ti;
+        out.im[i] -= gRe[i] * ti + gIm[i] * tr;
+      }
+    }
+  }
+
+  /**
+   * A LinearSolver for the opened system (for the load iteration), or undefined when K is singular. It keeps its
+   * own copy of W; each answer is checked by its residual and a bad one is an error, not a silent value.
+   */
+  linearSolver(opening: OpeningUpdate): { solver: LinearSolver; update: OpeningUpdate } | undefined {
+    const prepared = this.prepareUpdate(opening);
+    if (!prepared) return undefined;
+    const { u, k, tieClass } = prepared;
+    const m = u.m;
+    const wRe = this.wRe.slice(0, m).map((w) => w.slice());
+    const wIm = this.wIm.slice(0, m).map((w) => w.slice());
+    const solver: LinearSolver = {
+      matrix: this.matrix,
+      method: 'low-rank',
+      solve: (bRe, bIm): Outcome<ComplexVector> => {
+        const x = { re: new Float64Array(this.n), im: new Float64Array(this.n) };
+        this.baseSolve(bRe, bIm, x.re, x.im);
+        const z = OpeningSolver.correction(u, k, x.re, x.im);
+        if (!z) return { ok: false, column: -1, message: 'singular: the opening leaves part of the network without a reference' };
+        for (let b = 0; b < m; b++) {
+          const tr = z.zRe[b];
+          const ti = z.zIm[b];
+          for (let i = 0; i < this.n; i++) {
+            x.re[i] -= wRe[b][i] * tr - wIm[b][i] * ti;
+            x.im[i] -= wRe[b][i] * ti + wIm[b][i] * tr;
+          }
+        }
+        if (!OpeningSolver.tieCarriesNothing(tieClass, x)) return { ok: false, column: -1, message: 'singular: the tie of a cut-off part carries current' };
+        const residual = this.residual(u, x, bRe, bIm);
+        if (!(residual <= OPENING_RESIDUAL_TOLERANCE)) {
+          return { ok: false, column: -1, message: `singular: the update through the base factors left a residual of ${residual.toExponential(2)}` };
+        }
+        return { ok: true, value: x };
+      },
+    };
+    return { solver, update: u };
+  }
+}
+
+/** The same matrix without entries that are exactly zero (diagonals kept). */
+export function withoutExplicitZeros(a: ComplexCsc): ComplexCsc {
+  const n = a.n;
+  const colPtr = new Int32Array(n + 1);
+  let count = 0;
+  for (let j = 0; j < n; j++) {
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) if (a.re[p] !== 0 || a.im[p] !== 0 || a.rowIdx[p] === j) count++;
+    colPtr[j + 1] = count;
+  }
+  const rowIdx = new Int32Array(count);
+  const re = new Float64Array(count);
+  const im = new Float64Array(count);
+  let q = 0;
+  for (let j = 0; j < n; j++) {
+    for (let p = a.colPtr[j]; p < a.colPtr[j + 1]; p++) {
+      if (a.re[p] === 0 && a.im[p] === 0 && a.rowIdx[p] !== j) continue;
+      rowIdx[q] = a.rowIdx[p];
+      re[q] = a.re[p];
+      im[q++] = a.im[p];
+    }
+  }
+  return { n, colPtr, rowIdx, re, im };
+}
