@@ -1,5 +1,5 @@
-// The studies panel's props, read from the open sheet's stores: re-made when a study answers, the query changes,
-// or a solve answers (the profile follows the case on show).
+// The studies panel's view, read from the open sheet's stores: re-made when a study answers, a query changes,
+// or a solve answers (the profile and the loading follow the case on show).
 import { useMemo } from 'react';
 import { Store } from '../session/store';
 import type { EditorHandle } from '../ui/use-sheet-editor';
@@ -15,13 +15,13 @@ export function useStudiesView(handle: EditorHandle | null, view: EditorView) {
   const { snapshot, results, ui, caseLabel } = view;
   const nameOf = useMemo(() => (id: string) => snapshot.elements.get(id)?.name || id, [snapshot]);
   const kindOf = useMemo(() => (id: string) => snapshot.elements.get(id)?.kind as string | undefined, [snapshot]);
+  // The sheet the latest solve answered for (the loading study reads it beside the result).
+  const sheet = useMemo(() => (handle && results.base ? handle.session.reader.read(snapshot).sheet : null), [handle, results.base, snapshot]);
   // Names are read when the study answers; a rename after it shows once the study is run again (it is stale then).
   // eslint-disable-next-line react-hooks/exhaustive-deps
   const faultView = useMemo(() => makeFaultView(studies, nameOf, kindOf), [studies.fault.result, studies.fault.finishedAt]);
   return useMemo(
-    () => studiesView({ studies, base: results.base, active: results.active, trialChanges: ui.trialChanges, caseLabel, nameOf, kindOf, faultView }),
-    [studies, results.base, results.active, ui.trialChanges, caseLabel, nameOf, kindOf, faultView],
+    () => studiesView({ studies, sheet, base: results.base, active: results.active, trialChanges: ui.trialChanges, caseLabel, faultView }),
+    [studies, sheet, results.base, results.active, ui.trialChanges, caseLabel, faultView],
   );
 }
-
-export type StudiesView = ReturnType<typeof useStudiesView>;

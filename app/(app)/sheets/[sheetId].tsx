@@ -116,7 +116,7 @@ export default function SheetScreen() {
     crew: { title: 'Crew', body: crew, testID: 'panel-crew' },
     about: { title: 'Sheet details', body: about, testID: 'panel-about' },
     cautions: { title: 'Cautions', body: cautions, testID: 'panel-cautions' },
-    studies: isPhone ? { title: 'Studies', body: <StudiesPanel layout="cards" {...studies.props} />, testID: 'panel-studies' } : null,
+    studies: isPhone ? { title: 'Studies', body: <StudiesPanel layout="cards" view={studies.view} actions={studies.actions} selected={studies.selected} caution={studies.caution} />, testID: 'panel-studies' } : null,
   };
   const open = panels[ui.panel];
   const wideExtra = !isPhone && (ui.panel === 'crew' || ui.panel === 'about' || ui.panel === 'cautions') ? open : null;
@@ -225,7 +225,7 @@ export default function SheetScreen() {
             />
           ) : null
         }
-        bottomPane={!isPhone && ui.panel === 'studies' ? <StudiesPanel layout="table" {...studies.props} onClose={a.closePanel} /> : null}
+        bottomPane={!isPhone && ui.panel === 'studies' ? <StudiesPanel layout="table" view={studies.view} actions={studies.actions} selected={studies.selected} caution={studies.caution} onClose={a.closePanel} /> : null}
         panel={open ? <SlidingPanel title={open.title} onClose={a.closePanel} testID={open.testID}>{open.body}</SlidingPanel> : null}
       />
     </>

@@ -8,7 +8,7 @@ import { StudyRunner, type StudyWorkerLike } from '../../../editor/solve/study-r
 import type { StudyMessage, StudyRequest } from '../../../editor/solve/study-request';
 import { SheetSession } from '../../../editor/session/sheet-session';
 import { writeSheet } from '../../../editor/document/sheet-doc';
-import { StudySession, shownFaultKey } from '../../../editor/studies/study-session';
+import { StudySession, shownFaultKey, shownOpeningKey } from '../../../editor/studies/study-session';
 import { demoSheet } from '../support/fixtures';
 
 const sheet = demoSheet('larkspur-row.json');
@@ -81,7 +81,7 @@ describe('the study runner', () => {
     expect(events.at(-1)).toBe(`done ${id} worker`);
     const direct = faultStudy(sheet);
     if (!direct.ok) throw new Error(direct.error.message);
-    expect(result()!.result.cases).toEqual(direct.study.cases);
+    expect((result()!.result as typeof direct.study).cases).toEqual(direct.study.cases);
     expect(workers[0].terminated).toBe(true); // ended once it answered
     expect(runner.busy).toBe(false);
   });
@@ -201,6 +201,29 @@ describe('a case with no figures', () => {
       studies.showFaultCase({ busId: 'apt-3', busName: 'Apartment 3', faultType: 'three-phase', problem: 'the bus has 2 phases' });
       expect(session.ui.get().trialChanges).toEqual([]);
       expect(said).toEqual(['No figures for this case: the bus has 2 phases']);
+    } finally {
+      studies.destroy();
+      session.destroy();
+    }
+  });
+});
+
+describe('the break sweep through the study session', () => {
+  it('runs in the worker, and a row shown puts that one opening on the drawing', async () => {
+    const session = new SheetSession({ sheetId: 's', wsBase: '', editable: true, user: { id: 'u1', name: 'Rosa' }, solveMode: 'main', workerUrl: 'x.js' });
+    session.doc.transact(() => writeSheet(session.doc, sheet), 'seed');
+    const studies = new StudySession(session, () => {}, () => fakeWorker([]));
+    try {
+      studies.setSweepConductors('neutrals');
+      studies.runBreakSweep();
+      await until(() => studies.store.get().sweep.status === 'done', 'the sweep');
+      const result = studies.store.get().sweep.result!;
+      const runsWithNeutral = Object.values(sheet.elements).filter((e) => e.kind === 'run' && e.conductors.N && !e.conductors.N.open).length;
+      expect(result.total).toBe(runsWithNeutral);
+      expect(studies.store.get().fault.status).toBe('idle'); // the other studies are untouched
+      const worst = result.cases[0];
+      studies.showChanges([worst.change], 'worst');
+      expect(shownOpeningKey(session.ui.get().trialChanges)).toBe(`${worst.runId}|N`);
     } finally {
       studies.destroy();
       session.destroy();
