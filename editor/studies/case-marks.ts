@@ -2,6 +2,7 @@
 // and, for a readings match, the candidate cause. Also the view change that brings a marked element into sight
 // above a panel that covers the lower part of the canvas.
 import type { Rect } from '../../shared/symbols';
+import type { WhatIfChange } from '../../shared/sheet';
 import type { SolveResult } from '../../solver';
 import type { Viewport } from '../canvas/viewport';
 import { FAULT_TYPE_SHORT } from './fault-labels';
@@ -17,12 +18,31 @@ export interface CaseMark {
   label: string;
 }
 
-export function caseMarks(result: SolveResult | null, bodyOf: (id: string) => Rect | undefined): CaseMark[] {
+/**
+ * The marks of the case on show: its shunt fault, and any connection it opens or degrades (a lug: not otherwise
+ * drawn, unlike an open run conductor), at the element the connection lands on.
+ */
+export function caseMarks(
+  result: SolveResult | null,
+  bodyOf: (id: string) => Rect | undefined,
+  changes: readonly WhatIfChange[] = [],
+  landingOf: (connectionId: string) => string | undefined = () => undefined,
+): CaseMark[] {
+  const marks: CaseMark[] = [];
+  for (const c of changes) {
+    if (c.kind !== 'open-connection' && c.kind !== 'degrade-connection') continue;
+    const elementId = landingOf(c.connectionId);
+    const body = elementId ? bodyOf(elementId) : undefined;
+    if (!elementId || !body) continue;
+    const label = c.kind === 'open-connection' ? `${c.conductor} open at this lug` : `${c.ohms < 10 ? c.ohms.toFixed(2) : c.ohms.toFixed(1)} Ω on ${c.conductor} at this lug`;
+    marks.push({ key: `lug-${c.connectionId}-${c.conductor}`, kind: 'candidate', elementId, x: body.x, y: body.y + body.height / 2, label });
+  }
   const fault = result?.fault;
-  if (!fault) return [];
+  if (!fault) return marks;
   const body = bodyOf(fault.busId);
-  if (!body) return [];
+  if (!body) return marks;
   return [
+    ...marks,
     {
       key: `fault-${fault.busId}`,
       kind: 'fault',

@@ -49,7 +49,11 @@ export interface StudiesActions {
 export function useStudiesPanel(handle: EditorHandle | null, view: EditorView, isPhone: boolean) {
   const studies = useStudiesView(handle, view);
   const shownResult = view.results.active;
-  const marks = useMemo(() => caseMarks(shownResult, (id) => view.scene.elements.get(id)?.body), [shownResult, view.scene]);
+  const trial = view.ui.trialChanges;
+  const marks = useMemo(
+    () => caseMarks(shownResult, (id) => view.scene.elements.get(id)?.body, trial, (cid) => view.scene.connections.get(cid)?.connection.to.elementId),
+    [shownResult, view.scene, trial],
+  );
   const actions = useMemo((): StudiesActions => {
     const s = handle?.studies;
     const reveal = (elementId: string) => {

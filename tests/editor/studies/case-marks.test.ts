@@ -23,6 +23,20 @@ describe('case marks', () => {
     expect(caseMarks(base.result, () => body)).toEqual([]);
   });
 
+  it('marks a degraded or opened lug at the element its connection lands on', () => {
+    const body = { x: 10, y: 20, width: 40, height: 8 };
+    const marks = caseMarks(
+      null,
+      (id) => (id === 'apt-2' ? body : undefined),
+      [
+        { kind: 'degrade-connection', connectionId: 'c-apt-2-feeder-to', conductor: 'N', ohms: 3.2 },
+        { kind: 'open-connection', connectionId: 'elsewhere', conductor: 'A' },
+      ],
+      (cid) => (cid === 'c-apt-2-feeder-to' ? 'apt-2' : undefined),
+    );
+    expect(marks).toEqual([{ key: 'lug-c-apt-2-feeder-to-N', kind: 'candidate', elementId: 'apt-2', x: 10, y: 24, label: '3.20 Ω on N at this lug' }]);
+  });
+
   it('moves the view only when the element is out of the free part, then centres it there at the same zoom', () => {
     const size = { width: 390, height: 700 };
     const rect = { x: 1000, y: 900, width: 60, height: 20 };
