@@ -218,3 +218,20 @@ export function countCurrentCarrying(input: CurrentCarryingInput): CurrentCarryi
   else reason = 'the neutral is not counted, 310.15(E)(1): on a four-wire delta it carries only the unbalance of the 120/240 V part';
   return { count: phases + (counted ? 1 : 0), countFrom: 'counted', neutralCounted: counted, reason };
 }
+
+/** NEC 240.6(A) standard ampere ratings of fuses and inverse-time breakers, up to 6000 A (from memory). */
+export const STANDARD_OVERCURRENT_RATINGS_AMPERES = [
+  15, 20, 25, 30, 35, 40, 45, 50, 60, 70, 80, 90, 100, 110, 125, 150, 175, 200, 225, 250, 300, 350, 400, 450, 500, 600,
+  700, 800, 1000, 1200, 1600, 2000, 2500, 3000, 4000, 5000, 6000,
+] as const;
+
+/**
+ * The largest overcurrent device that 240.4(B) lets protect a conductor of this ampacity: the ampacity itself when
+ * it is a standard rating, else the next standard rating above it as long as that is 800 A or less.
+ */
+export function largestProtectionAmperes(ampacityAmperes: number): number {
+  if (!(ampacityAmperes > 0)) return 0;
+  const next = STANDARD_OVERCURRENT_RATINGS_AMPERES.find((r) => r >= ampacityAmperes - 1e-9);
+  if (next === undefined) return ampacityAmperes;
+  return next <= 800 || Math.abs(next - ampacityAmperes) < 1e-9 ? next : ampacityAmperes;
+}

@@ -2,7 +2,7 @@
 // conductor currents, then the checks, warnings, assumptions and the caution.
 import type { BusResult, LoadResult, RunResult, SolveResult, Standing } from './types';
 
-function table(headers: string[], rows: string[][], rightAlign: boolean[]): string {
+export function table(headers: string[], rows: string[][], rightAlign: boolean[]): string {
   const widths = headers.map((h, i) => Math.max(h.length, ...rows.map((r) => (r[i] ?? '').length)));
   const line = (cells: string[]) =>
     cells.map((c, i) => (rightAlign[i] ? c.padStart(widths[i]) : c.padEnd(widths[i]))).join('  ').trimEnd();

@@ -1,9 +1,9 @@
 // Each run conductor's current against its NEC 310.16 ampacity, corrected for ambient (310.15(B)), adjusted for more
 // than three current-carrying conductors (310.15(C)(1)) with the neutral counted where 310.15(E) counts it, and the
-// small-conductor limit of 240.4(D) against the breaker upstream. The rule applied is stated with each figure.
+// protection of 240.4(B) and the small-conductor limit of 240.4(D) against the breaker upstream. The rule applied is stated with each figure.
 import { formatSize } from '../../shared/conductor-sizes';
 import type { ConductorId, RunElement, Sheet } from '../../shared/sheet';
-import { ampacity, countCurrentCarrying, smallConductorOvercurrentLimit, type InsulationTempC } from '../conductors';
+import { ampacity, countCurrentCarrying, largestProtectionAmperes, smallConductorOvercurrentLimit, type InsulationTempC } from '../conductors';
 import type { RunResult } from '../results/types';
 import { nearestUpstream, type FeedTree } from '../solve/feed-tree';
 import type { ConductorLoading } from './types';
@@ -60,12 +60,16 @@ export function conductorLoadings(
       row.note = 'an equipment grounding conductor is sized by NEC 250.122, not by ampacity';
       continue;
     }
-    if (run.impedanceFrom === 'iec-60228' || data.size === undefined) {
-      row.note = 'no NEC 310.16 size: IEC users get the same check from a table of their own in a later release';
-      continue;
-    }
     if (run.impedanceFrom === 'overhead') {
       row.note = 'an overhead conductor in free air is not rated by NEC 310.16';
+      continue;
+    }
+    if (run.impedanceFrom === 'iec-60228') {
+      row.note = 'an IEC 60228 size: IEC users get the same check from a table of their own in a later release';
+      continue;
+    }
+    if (data.size === undefined) {
+      row.note = 'no AWG or kcmil size on the sheet: no NEC 310.16 ampacity';
       continue;
     }
     try {
@@ -92,6 +96,11 @@ export function conductorLoadings(
       row.ampacityAmperes = amperes;
       row.percentOfAmpacity = (100 * row.amperes) / amperes;
       row.status = row.percentOfAmpacity > 100 ? 'over' : row.percentOfAmpacity >= HIGH_LOADING_PERCENT ? 'high' : 'ok';
+      if (breakerId && breakerRating !== undefined && PHASES.includes(conductor)) {
+        const largest = largestProtectionAmperes(amperes);
+        row.protection = { breakerId, breakerRatingAmperes: breakerRating, largestAllowedAmperes: largest, exceeded: breakerRating > largest + 1e-9 };
+        if (row.protection.exceeded) row.note = `240.4(B): ${amperes.toFixed(1)} A of ampacity may be protected at ${largest} A at most; ${breakerId} is ${breakerRating} A`;
+      }
       const limit = smallConductorOvercurrentLimit(data.size, data.material);
       if (limit !== undefined && PHASES.includes(conductor)) {
         row.smallConductor = {

@@ -14,6 +14,7 @@ import { voltageDrops } from './voltage-drop';
 
 export const LOADING_STUDY_NOTES = [
   'Ampacity: NEC Table 310.16 (not more than three current-carrying conductors in raceway, cable or earth, 30 °C) with the 310.15(B) ambient correction (its equation, which reproduces Table 310.15(B)(1)) and the 310.15(C)(1) adjustment; each parallel set is taken to be in its own raceway; the neutral is counted per 310.15(E); termination temperature limits (110.14(C)) are not applied. Table values from memory.',
+  'Protection: the breaker upstream of a run may be at most the conductor’s ampacity, or the next standard rating above it up to 800 A (NEC 240.4(B), standard ratings of 240.6(A)), and at most 15/20/30 A on 14/12/10 AWG copper (240.4(D)); from memory.',
   'IEC users get the same conductor check from a table of their own (IEC 60364-5-52) in a later release; IEC runs are listed as not rated for now.',
   'Breakers: the largest pole current against the rating; above 80 % is flagged for continuous loads (common practice: a standard breaker carries at most 80 % of its rating continuously).',
   'Voltage drop: each run’s largest phase-to-neutral (or line-to-line) drop in percent of nominal, and the sum over the runs from the source or transformer that starts its zone; 3 % on a feeder or branch circuit and 5 % in total are the guidance of the informational notes to NEC 210.19(A) and 215.2(A), not requirements.',
@@ -59,6 +60,7 @@ export function loadingStudyOf(sheet: Sheet, result: SolveResult, options: Omit<
     summary: {
       conductorsOver: conductors.filter((c) => c.status === 'over').length,
       conductorsHigh: conductors.filter((c) => c.status === 'high').length,
+      runsUnprotected: new Set(conductors.filter((c) => c.protection?.exceeded || c.smallConductor?.exceeded).map((c) => c.runId)).size,
       breakersOver: breakers.filter((b) => b.status === 'over').length,
       breakersAboveContinuous: breakers.filter((b) => b.status === 'above-continuous').length,
       runsOverDrop: voltageDrop.filter((d) => d.dropPercent !== undefined && d.dropPercent > runLimit).length,

@@ -56,6 +56,8 @@ export interface ConductorLoading {
   rule?: AmpacityRule;
   /** 240.4(D): the largest overcurrent device allowed on small conductors, and the breaker upstream of the run. */
   smallConductor?: { limitAmperes: number; breakerId?: string; breakerRatingAmperes?: number; exceeded: boolean };
+  /** 240.4(B): the breaker upstream of the run (phases only) against the largest device the ampacity allows. */
+  protection?: { breakerId: string; breakerRatingAmperes: number; largestAllowedAmperes: number; exceeded: boolean };
   note?: string;
 }
 
@@ -113,6 +115,8 @@ export interface LoadingStudy {
   summary: {
     conductorsOver: number;
     conductorsHigh: number;
+    /** Runs whose breaker is larger than 240.4(B) or 240.4(D) allows for them. */
+    runsUnprotected: number;
     breakersOver: number;
     breakersAboveContinuous: number;
     runsOverDrop: number;

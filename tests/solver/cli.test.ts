@@ -30,6 +30,21 @@ describe('npm run solve', () => {
     expect(r.out).toMatch(/engineering estimate/);
   });
 
+  it('prints the loading study with --loading, as tables or JSON', () => {
+    const r = run([farm, '--loading']);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/Conductors \(NEC 310\.16, worst first\)/);
+    expect(r.out).toMatch(/Voltage drop \(3 % per run, 5 % in total\)/);
+    expect(r.out).toMatch(/pole-transformer > service-drop > barn-feeder/);
+    expect(r.out).toMatch(/overhead conductor in free air is not rated/);
+    expect(r.out).toMatch(/IEC users get the same conductor check/);
+    const j = run([farm, '--loading', '--what-if', 'open-service-neutral', '--json']);
+    expect(j.code).toBe(0);
+    const study = JSON.parse(j.out);
+    expect(study.whatIf.id).toBe('open-service-neutral');
+    expect(study.conductors.length).toBeGreaterThan(5);
+  });
+
   it('solves a what-if and prints JSON on request', () => {
     const r = run([farm, '--what-if', 'open-service-neutral', '--json']);
     expect(r.code).toBe(0);

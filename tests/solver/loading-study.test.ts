@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { SheetBuilder } from './helpers/sheet-builder';
 import { readSheet, type Sheet } from '../../shared/sheet';
 import { loadingStudy, solveSheet, type LoadingStudy, type ConductorLoading } from '../../solver';
+import { largestProtectionAmperes } from '../../solver/conductors';
 
 function study(sheet: Sheet, options = {}): LoadingStudy {
   const s = loadingStudy(sheet, options);
@@ -76,6 +77,20 @@ describe('conductor ampacity: NEC 310.16 with 310.15(B), 310.15(C)(1) and 310.15
     expect(a.rule!.text).toMatch(/310\.15\(E\)\(1\)/);
   });
 
+  it.each([
+    // source: NEC Table 310.15(B)(1), row 36–40 °C: 0.82 / 0.88 / 0.91 for 60 / 75 / 90 °C insulation (from memory);
+    // Table 310.16 1/0 AWG Cu 125 / 150 / 170 A (from memory)
+    [60, 0.82, 125],
+    [75, 0.88, 150],
+    [90, 0.91, 170],
+  ] as const)('1/0 Cu with %i °C insulation at 40 °C: factor %f', (insulationTempC, factor, table) => {
+    const s = study(feeder(fourWire('1/0', 'copper', { insulationTempC, ambientC: 40 }), { h: wyeLoad(10, 'heating') }));
+    const a = row(s, 'run', 'A');
+    expect(a.rule!.tableAmperes).toBe(table);
+    expect(Math.abs(a.rule!.ambientFactor - factor)).toBeLessThanOrEqual(0.005);
+    expect(a.ampacityAmperes).toBeCloseTo(table * a.rule!.ambientFactor, 9);
+  });
+
   it('3/0 Al 75 °C, two phases and the neutral of a 4-wire wye: the neutral counts; a given count of 7 takes 70 %', () => {
     const run = { lengthFt: 40, conductors: { A: { size: '3/0', material: 'aluminum' }, B: { size: '3/0', material: 'aluminum' }, N: { size: '3/0', material: 'aluminum' } } };
     const loads = { l1: { connection: 'line-to-neutral', ratedVolts: 120, kw: 5, loadKind: 'heating' }, l2: { connection: 'line-to-neutral', ratedVolts: 120, kw: 5, loadKind: 'heating', map: { B: 'A', N: 'N' } } };
@@ -114,6 +129,24 @@ describe('conductor ampacity: NEC 310.16 with 310.15(B), 310.15(C)(1) and 310.15
     expect(a.smallConductor).toEqual({ limitAmperes: 20, breakerId: 'cb', breakerRatingAmperes: 30, exceeded: true }); // source: NEC 240.4(D) (recalled)
     expect(s.conductors[0].status).toBe('over'); // worst first
     expect(s.summary.conductorsOver).toBeGreaterThanOrEqual(1);
+  });
+
+  it('240.4(B): the breaker may be the next standard rating above the ampacity, up to 800 A', () => {
+    // source: NEC 240.4(B) and the 240.6(A) standard ratings (from memory): 230 A of 4/0 Cu may take a 250 A breaker
+    expect(largestProtectionAmperes(230)).toBe(250);
+    expect(largestProtectionAmperes(100)).toBe(100);
+    expect(largestProtectionAmperes(132.3)).toBe(150);
+    expect(largestProtectionAmperes(800)).toBe(800);
+    expect(largestProtectionAmperes(810)).toBe(810); // above 800 A no rounding up (240.4(C))
+    const at = (rating: number) => row(study(feeder(fourWire('4/0'), { h: wyeLoad(10, 'heating') }, { breaker: { ratingAmperes: rating } })), 'run', 'A');
+    expect(at(250).protection).toEqual({ breakerId: 'cb', breakerRatingAmperes: 250, largestAllowedAmperes: 250, exceeded: false });
+    const over = at(300);
+    expect(over.protection!.exceeded).toBe(true);
+    expect(over.note).toMatch(/240\.4\(B\)/);
+    const s = study(feeder(fourWire('4/0'), { h: wyeLoad(10, 'heating') }, { breaker: { ratingAmperes: 300 } }));
+    expect(s.summary.runsUnprotected).toBe(1);
+    // the neutral and the PE are not checked against the breaker
+    expect(row(s, 'run', 'N').protection).toBeUndefined();
   });
 
   it('IEC runs are not rated yet and say so', () => {

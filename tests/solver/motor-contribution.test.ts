@@ -48,6 +48,40 @@ describe('motor contribution during faults', () => {
     expect(withMotor.assumptions.some((a) => /pump.*subtransient reactance/.test(a))).toBe(true);
   });
 
+  it('a motor behind a run feeds E" / (Z_run + jX"d), E" from its pre-fault current (hand Thevenin, per-phase wye)', () => {
+    // 100 ft of 4 AWG Cu in PVC: NEC Chapter 9 Table 9 (seen) R 0.31, XL 0.048 Ω/1000 ft per conductor.
+    const zs = { re: 0.005, im: 0.03 };
+    const zr = { re: 0.031, im: 0.0048 };
+    const build = (contributes: boolean) =>
+      new SheetBuilder('motor behind a run', {})
+        .source('src', { nominalVolts: 480, strength: 'impedance', r1Ohms: zs.re, x1Ohms: zs.im, r0Ohms: zs.re, x0Ohms: zs.im })
+        .bus('mcc', { role: 'service', neutralGroundBond: true })
+        .run('cable', { lengthFt: 100, conductors: { A: { size: '4' }, B: { size: '4' }, C: { size: '4' } } })
+        .load('pump', { connection: 'three-phase-delta', loadKind: 'motor', kw: KVA * PF, powerFactor: PF, ratedVolts: 480, contributesToFaults: contributes })
+        .connect('src', 'out', 'mcc', 'bars', ['A', 'B', 'C', 'N'])
+        .connect('mcc', 'bars', 'cable', 'from', ['A', 'B', 'C'])
+        .connect('cable', 'to', 'pump', 'supply', ['A', 'B', 'C'])
+        .sheet();
+    const spec: FaultSpec = { busId: 'mcc', faultType: 'three-phase' };
+    const added = diff(fault(build(true), spec).fault.currents.A!, fault(build(false), spec).fault.currents.A!);
+    // Per-phase wye equivalent (complex arithmetic by hand): Y_load = conj(S) / V_LL², X" = 0.17 V_LL² / |S|.
+    type C = { re: number; im: number };
+    const add = (a: C, b: C): C => ({ re: a.re + b.re, im: a.im + b.im });
+    const mul = (a: C, b: C): C => ({ re: a.re * b.re - a.im * b.im, im: a.re * b.im + a.im * b.re });
+    const div = (a: C, b: C): C => {
+      const d = b.re * b.re + b.im * b.im;
+      return { re: (a.re * b.re + a.im * b.im) / d, im: (a.im * b.re - a.re * b.im) / d };
+    };
+    const s = { re: KVA * PF * 1000, im: KVA * Math.sqrt(1 - PF * PF) * 1000 };
+    const zLoad = div({ re: 480 * 480, im: 0 }, { re: s.re, im: -s.im });
+    const xd = { re: 0, im: (0.17 * 480 * 480) / Math.hypot(s.re, s.im) };
+    const e = { re: 480 / Math.sqrt(3), im: 0 };
+    const iPre = div(e, add(add(zs, zr), zLoad));
+    const ePrime = add(e, mul({ re: -1, im: 0 }, mul(add(add(zs, zr), xd), iPre)));
+    const hand = div(ePrime, add(zr, xd));
+    expect(added).toBeCloseTo(Math.hypot(hand.re, hand.im), 6);
+  });
+
   it('a given X"d is used: 0.25 pu feeds less than 0.17 pu, in the ratio of the reactances', () => {
     const base = fault(plant({}).sheet(), { busId: 'mcc', faultType: 'three-phase' });
     const at17 = fault(plant({ contributesToFaults: true }).sheet(), { busId: 'mcc', faultType: 'three-phase' });
