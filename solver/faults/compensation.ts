@@ -12,6 +12,8 @@ import type { PinVoltages } from '../solve/load-iteration';
 import type { Parts } from '../solve/parts';
 import { denseComplexSolveInPlace } from '../sparse/dense-complex';
 import type { FaultNetwork, FaultNode } from './fault-branches';
+import type { NumericLu } from '../sparse/lu';
+import { createSparseWorkspace, lowerSolveUnit, sparseDotDense, upperByRows, upperTransposeSolveUnit, type SparseVector, type SparseWorkspace } from '../sparse/sparse-rhs';
 
 export interface FaultSystem {
   network: BuiltNetwork;
@@ -23,6 +25,46 @@ export interface FaultSystem {
   prefault: PinVoltages;
   /** class → the solution for a unit right-hand side at that class (scaled system), kept for further faults. */
   columns: Map<number, ComplexVector>;
+  /**
+   * The factors behind `solver`, when it is a plain factorization: transfer impedances then come from sparse unit
+   * solves (the reach of one entry in L and in Uᵀ), without a full column per class.
+   */
+  factors?: NumericLu;
+  sparse?: { ws: SparseWorkspace; forward: Map<number, SparseVector>; backward: Map<number, SparseVector>; transfers: Map<number, Complex> };
+}
+
+/** Forgets the columns and transfers found so far (the fault study does after each bus: they serve that bus only). */
+export function clearFaultCaches(fs: FaultSystem): void {
+  fs.columns.clear();
+  if (fs.sparse) {
+    fs.sparse.forward.clear();
+    fs.sparse.backward.clear();
+    fs.sparse.transfers.clear();
+  }
+}
+
+/** (A⁻¹)(k, l) of the scaled system from the factors: (U⁻ᵀ e_k')·(L⁻¹ e_l') in pivot numbering. */
+function inverseEntry(fs: FaultSystem, lu: NumericLu, k: number, l: number): Complex {
+  const n = lu.n;
+  const sp = (fs.sparse ??= { ws: createSparseWorkspace(n), forward: new Map(), backward: new Map(), transfers: new Map() });
+  const cached = sp.transfers.get(k * n + l);
+  if (cached) return cached;
+  let y = sp.forward.get(l);
+  if (!y) sp.forward.set(l, (y = lowerSolveUnit(lu, sp.ws, lu.rowPivot[l])));
+  let v = sp.backward.get(k);
+  if (!v) sp.backward.set(k, (v = upperTransposeSolveUnit(lu, upperByRows(lu), sp.ws, lu.colOrderInverse[k])));
+  const { re, im } = sp.ws; // all zero between uses
+  for (let t = 0; t < y.idx.length; t++) {
+    re[y.idx[t]] = y.re[t];
+    im[y.idx[t]] = y.im[t];
+  }
+  const g = sparseDotDense(v, re, im);
+  for (let t = 0; t < y.idx.length; t++) {
+    re[y.idx[t]] = 0;
+    im[y.idx[t]] = 0;
+  }
+  sp.transfers.set(k * n + l, g);
+  return g;
 }
 
 export interface FaultCurrents {
@@ -49,6 +91,11 @@ export function unitColumn(fs: FaultSystem, cls: number): ComplexVector | string
 
 /** Thevenin transfer impedance between classes k and l (volts at k per ampere injected at l), ohms. */
 function transfer(fs: FaultSystem, k: number, l: number): Complex | string {
+  if (fs.factors) {
+    const g = inverseEntry(fs, fs.factors, k, l);
+    const f = fs.system.scale[k] * fs.system.scale[l];
+    return { re: g.re * f, im: g.im * f };
+  }
   const col = unitColumn(fs, l);
   if (typeof col === 'string') return col;
   const f = fs.system.scale[k] * fs.system.scale[l];

@@ -7,6 +7,7 @@ import { pinKey } from '../network/types';
 import type { SolveFailure } from '../solve/solve-network';
 import type { FaultOptions } from './fault-types';
 import { peakFactor } from './peak-factor';
+import { clearFaultCaches } from './compensation';
 import { faultCase, FAULT_ASSUMPTIONS, motorAssumption, prepareFaults, TRANSFORMER_IMPEDANCE_TOLERANCE } from './solve-fault';
 
 export interface FaultStudyOptions extends FaultOptions {
@@ -96,6 +97,8 @@ export function faultStudy(sheet: Sheet, options: FaultStudyOptions = {}): { ok:
       const worst = worstAt.get(bus.id);
       if (row.symmetricalKa !== undefined && (!worst || row.symmetricalKa > worst.symmetricalKa!)) worstAt.set(bus.id, row);
     }
+    // The Thevenin columns of one bus serve its fault types only; kept for every bus they would hold n² numbers.
+    clearFaultCaches(fs);
     options.onProgress?.(k + 1, buses.length);
   });
 

@@ -11,10 +11,10 @@ import { solveBuiltNetwork, type Solution } from '../solve/solve-network';
 import type { Factorization } from '../linear-system';
 import { LoadWatch, type CaseFigures } from './load-watch';
 import { OpeningSolver } from './opening-solver';
-import type { BreakCase, BreakRanking, BreakSweepOptions, BreakSweepResult, StudyLoadModel, StudyOutcome } from './study-types';
+import { runAsync, runSync, type SlicedStudy } from './run-study';
+import type { BreakCase, BreakRanking, BreakSweepOptions, BreakSweepResult, StudyLoadModel, StudyOutcome, StudyProgress } from './study-types';
 
 const DEFAULT_REFINE_WORST = 10;
-const DEFAULT_SLICE_MS = 12;
 
 const now = (): number => (typeof performance !== 'undefined' ? performance.now() : Date.now());
 
@@ -42,7 +42,7 @@ export function compareBreakCases(a: BreakCase, b: BreakCase, by: BreakRanking =
 }
 
 /** A prepared sweep: the base case factored once, the cases listed, stepped through by slices. */
-export class BreakSweeper {
+export class BreakSweeper implements SlicedStudy<BreakSweepResult> {
   readonly total: number;
   readonly cases: BreakCase[] = [];
   private next = 0;
@@ -112,6 +112,10 @@ export class BreakSweeper {
 
   private get refineTarget(): number {
     return Math.min(this.refineWorst, this.work.length);
+  }
+
+  progress(): StudyProgress {
+    return { done: this.done, total: this.steps };
   }
 
   /** Steps until about `ms` have passed (at least one), unless aborted. */
@@ -235,39 +239,12 @@ export function openingMods(runId: string, conductor: ConductorId): Modification
   return { ...NO_MODIFICATIONS, openRunConductors: new Set([runConductorKey(runId, conductor)]) };
 }
 
-const aborted = (options: BreakSweepOptions) => options.signal?.aborted === true;
-
 /** The whole sweep in one go (Node, a worker thread, a Web Worker). Progress is reported once per slice. */
 export function breakSweepSync(sheet: Sheet, options: BreakSweepOptions = {}): StudyOutcome<BreakSweepResult> {
-  try {
-    const prepared = BreakSweeper.prepare(sheet, options);
-    if (!prepared.ok) return prepared;
-    const sweep = prepared.value;
-    while (!sweep.finished && !aborted(options)) {
-      sweep.runSlice(options.sliceMs ?? DEFAULT_SLICE_MS, options.signal);
-      options.onProgress?.({ done: sweep.done, total: sweep.steps });
-    }
-    return { ok: true, value: sweep.result(!sweep.finished) };
-  } catch (error) {
-    return { ok: false, error: { code: 'internal', message: `the break sweep failed unexpectedly: ${(error as Error).message}`, elementIds: [] } };
-  }
+  return runSync('break sweep', () => BreakSweeper.prepare(sheet, options), options);
 }
 
-const yieldToEventLoop = (): Promise<void> => new Promise((resolve) => setTimeout(resolve, 0));
-
 /** The sweep in slices, yielding to the event loop between them (for a UI thread); same result as breakSweepSync. */
-export async function breakSweep(sheet: Sheet, options: BreakSweepOptions = {}): Promise<StudyOutcome<BreakSweepResult>> {
-  try {
-    const prepared = BreakSweeper.prepare(sheet, options);
-    if (!prepared.ok) return prepared;
-    const sweep = prepared.value;
-    while (!sweep.finished && !aborted(options)) {
-      sweep.runSlice(options.sliceMs ?? DEFAULT_SLICE_MS, options.signal);
-      options.onProgress?.({ done: sweep.done, total: sweep.steps });
-      if (!sweep.finished) await yieldToEventLoop();
-    }
-    return { ok: true, value: sweep.result(!sweep.finished) };
-  } catch (error) {
-    return { ok: false, error: { code: 'internal', message: `the break sweep failed unexpectedly: ${(error as Error).message}`, elementIds: [] } };
-  }
+export function breakSweep(sheet: Sheet, options: BreakSweepOptions = {}): Promise<StudyOutcome<BreakSweepResult>> {
+  return runAsync('break sweep', () => BreakSweeper.prepare(sheet, options), options);
 }

@@ -37,7 +37,7 @@ export class LoadWatch {
     classes: PinClasses,
     system: AssembledSystem,
   ) {
-    const kept: number[] = [];
+    let kept: number[] = [];
     const ranges: { nominal: number; normal: [number, number]; tolerable: [number, number] }[] = [];
     network.loads.forEach((part, k) => {
       const n = network.nominal;
@@ -48,6 +48,11 @@ export class LoadWatch {
       kept.push(k);
       ranges.push({ nominal: nominalVolts, normal: standing.normalRange, tolerable: standing.tolerableRange });
     });
+    // In class order, so that a pass over the loads walks the unknowns forwards (fewer cache misses on big sheets).
+    const order = kept.map((_, t) => t).sort((s, t) => classes.classOf[network.loads[kept[s]].p] - classes.classOf[network.loads[kept[t]].p]);
+    kept = order.map((t) => kept[t]);
+    const sortedRanges = order.map((t) => ranges[t]);
+    ranges.splice(0, ranges.length, ...sortedRanges);
     const c = (this.count = kept.length);
     this.part = Int32Array.from(kept);
     const f = () => new Float64Array(c);

@@ -13,7 +13,6 @@ import { analyse } from '../sparse/symbolic';
 import { factor, type NumericLu } from '../sparse/lu';
 import { cachedRowAbsSums, maxOf, multiplyInto } from '../sparse/residual';
 import { lowerSolveInPlace, permuteColumns, permuteRows, upperSolveInPlace } from '../sparse/solve';
-import { createSparseWorkspace, lowerSolveUnit, type SparseWorkspace } from '../sparse/sparse-rhs';
 import { denseComplexSolveInPlace } from '../sparse/dense-complex';
 import type { PinClasses } from '../solve/classes';
 import type { AssembledSystem } from '../solve/assemble';
@@ -63,7 +62,6 @@ export class OpeningSolver {
   /** The base matrix without its explicit zeros, and its own factors (sparser: see the constructor). */
   readonly matrix: ComplexCsc;
   private readonly lu: NumericLu;
-  private readonly ws: SparseWorkspace;
 
   constructor(
     readonly network: BuiltNetwork,
@@ -75,7 +73,6 @@ export class OpeningSolver {
     this.matrix = withoutExplicitZeros(system.matrix);
     this.lu = factor(analyse(this.matrix), this.matrix);
     this.n = this.matrix.n;
-    this.ws = createSparseWorkspace(this.n);
     // One more column than the widest run: the tie that holds a cut-off part (see withTie).
     this.maxM = network.runs.reduce((m, r) => Math.max(m, r.conductors.length), 1) + 1;
     const arrays = () => Array.from({ length: this.maxM }, () => new Float64Array(this.n));
@@ -159,8 +156,8 @@ export class OpeningSolver {
   }
 
   /**
-   * W = A⁻¹ U into the column scratch. Each column has two nonzeros, so its forward half is two sparse unit solves
-   * (only the reach of each entry in L); the back substitution is dense.
+   * W = A⁻¹ U into the column scratch. Each column has two nonzeros, so the forward substitution skips almost
+   * everything (it passes over zero entries); the back substitution is dense.
    */
   private columns(u: OpeningUpdate): void {
     const lu = this.lu;
@@ -168,17 +165,9 @@ export class OpeningSolver {
     for (let a = 0; a < u.m; a++) {
       tmpRe.fill(0);
       tmpIm.fill(0);
-      for (const [c, s] of [
-        [u.fromClass[a], u.fromScale[a]],
-        [u.toClass[a], -u.toScale[a]],
-      ]) {
-        if (c < 0 || s === 0) continue;
-        const v = lowerSolveUnit(lu, this.ws, lu.rowPivot[c]);
-        for (let t = 0; t < v.idx.length; t++) {
-          tmpRe[v.idx[t]] += s * v.re[t];
-          tmpIm[v.idx[t]] += s * v.im[t];
-        }
-      }
+      if (u.fromClass[a] >= 0) tmpRe[lu.rowPivot[u.fromClass[a]]] += u.fromScale[a];
+      if (u.toClass[a] >= 0) tmpRe[lu.rowPivot[u.toClass[a]]] -= u.toScale[a];
+      lowerSolveInPlace(lu, tmpRe, tmpIm);
       upperSolveInPlace(lu, tmpRe, tmpIm);
       permuteColumns(lu, tmpRe, tmpIm, this.wRe[a], this.wIm[a]);
     }
@@ -241,47 +230,64 @@ export class OpeningSolver {
   /** z = K⁻¹ D Uᵀ y, or undefined when K is singular to working precision. */
   private static correction(u: OpeningUpdate, k: Capacitance, yRe: Float64Array, yIm: Float64Array) {
     const m = u.m;
-    const zRe = new Float64Array(m);
-    const zIm = new Float64Array(m);
-    const py = Array.from({ length: m }, (_, c) => OpeningSolver.project(u, c, yRe, yIm));
+    const py = OpeningSolver.projectAll(u, yRe, yIm);
+    const { re: zRe, im: zIm } = OpeningSolver.dTimes(u, py.re, py.im);
+    const ok = denseComplexSolveInPlace(m, k.kRe.slice(), k.kIm.slice(), zRe, zIm, PIVOT_FLOOR * k.termScale);
+    return ok ? { zRe, zIm } : undefined;
+  }
+
+  /** D v for an m-vector v. */
+  private static dTimes(u: OpeningUpdate, vRe: ArrayLike<number>, vIm: ArrayLike<number>): { re: Float64Array; im: Float64Array } {
+    const m = u.m;
+    const re = new Float64Array(m);
+    const im = new Float64Array(m);
     for (let a = 0; a < m; a++) {
       for (let c = 0; c < m; c++) {
         const dr = u.dRe[a * m + c];
         const di = u.dIm[a * m + c];
-        zRe[a] += dr * py[c].re - di * py[c].im;
-        zIm[a] += dr * py[c].im + di * py[c].re;
+        re[a] += dr * vRe[c] - di * vIm[c];
+        im[a] += dr * vIm[c] + di * vRe[c];
       }
     }
-    const ok = denseComplexSolveInPlace(m, k.kRe.slice(), k.kIm.slice(), zRe, zIm, PIVOT_FLOOR * k.termScale);
-    return ok ? { zRe, zIm } : undefined;
+    return { re, im };
+  }
+
+  /** into += sign · U t. */
+  private static addU(u: OpeningUpdate, t: { re: Float64Array; im: Float64Array }, sign: number, intoRe: Float64Array, intoIm: Float64Array): void {
+    for (let a = 0; a < u.m; a++) {
+      const tr = sign * t.re[a];
+      const ti = sign * t.im[a];
+      if (tr === 0 && ti === 0) continue;
+      const cf = u.fromClass[a];
+      const ct = u.toClass[a];
+      if (cf >= 0) {
+        intoRe[cf] += u.fromScale[a] * tr;
+        intoIm[cf] += u.fromScale[a] * ti;
+      }
+      if (ct >= 0) {
+        intoRe[ct] -= u.toScale[a] * tr;
+        intoIm[ct] -= u.toScale[a] * ti;
+      }
+    }
+  }
+
+  /** Uᵀ v as an m-vector. */
+  private static projectAll(u: OpeningUpdate, vRe: Float64Array, vIm: Float64Array): { re: Float64Array; im: Float64Array } {
+    const re = new Float64Array(u.m);
+    const im = new Float64Array(u.m);
+    for (let a = 0; a < u.m; a++) {
+      const p = OpeningSolver.project(u, a, vRe, vIm);
+      re[a] = p.re;
+      im[a] = p.im;
+    }
+    return { re, im };
   }
 
   /** b + Δb of the opened system (Δb = −U D w) into `into`. */
   openedRhs(u: OpeningUpdate, bRe: Float64Array, bIm: Float64Array, intoRe: Float64Array, intoIm: Float64Array): void {
     intoRe.set(bRe);
     intoIm.set(bIm);
-    const m = u.m;
-    for (let a = 0; a < m; a++) {
-      let tr = 0;
-      let ti = 0;
-      for (let c = 0; c < m; c++) {
-        const dr = u.dRe[a * m + c];
-        const di = u.dIm[a * m + c];
-        tr += dr * u.wRe[c] - di * u.wIm[c];
-        ti += dr * u.wIm[c] + di * u.wRe[c];
-      }
-      if (tr === 0 && ti === 0) continue;
-      const cf = u.fromClass[a];
-      const ct = u.toClass[a];
-      if (cf >= 0) {
-        intoRe[cf] -= u.fromScale[a] * tr;
-        intoIm[cf] -= u.fromScale[a] * ti;
-      }
-      if (ct >= 0) {
-        intoRe[ct] += u.toScale[a] * tr;
-        intoIm[ct] += u.toScale[a] * ti;
-      }
-    }
+    OpeningSolver.addU(u, OpeningSolver.dTimes(u, u.wRe, u.wIm), -1, intoRe, intoIm);
   }
 
   /** Relative residual of x on (A + U D Uᵀ) x = b (b already the opened right-hand side). */
@@ -289,28 +295,8 @@ export class OpeningSolver {
     const { rRe, rIm } = this;
     multiplyInto(this.matrix, x.re, x.im, rRe, rIm);
     const n = this.n;
-    const m = u.m;
-    const px = Array.from({ length: m }, (_, c) => OpeningSolver.project(u, c, x.re, x.im));
-    for (let a = 0; a < m; a++) {
-      let tr = 0;
-      let ti = 0;
-      for (let c = 0; c < m; c++) {
-        const dr = u.dRe[a * m + c];
-        const di = u.dIm[a * m + c];
-        tr += dr * px[c].re - di * px[c].im;
-        ti += dr * px[c].im + di * px[c].re;
-      }
-      const cf = u.fromClass[a];
-      const ct = u.toClass[a];
-      if (cf >= 0) {
-        rRe[cf] += u.fromScale[a] * tr;
-        rIm[cf] += u.fromScale[a] * ti;
-      }
-      if (ct >= 0) {
-        rRe[ct] -= u.toScale[a] * tr;
-        rIm[ct] -= u.toScale[a] * ti;
-      }
-    }
+    const px = OpeningSolver.projectAll(u, x.re, x.im);
+    OpeningSolver.addU(u, OpeningSolver.dTimes(u, px.re, px.im), 1, rRe, rIm);
     // One pass for ||r||∞, ||x||∞ and ||b||∞; ||A + UDUᵀ||∞ is taken as the base's (an opening lowers a few entries).
     let worst = 0;
     let xMax = 0;
@@ -405,16 +391,7 @@ export class OpeningSolver {
     const { u, k, tieClass } = prepared;
     const m = u.m;
     // t0 = D w; y = x0 − W t0 (formed in out).
-    const t0Re = new Float64Array(m);
-    const t0Im = new Float64Array(m);
-    for (let a = 0; a < m; a++) {
-      for (let c = 0; c < m; c++) {
-        const dr = u.dRe[a * m + c];
-        const di = u.dIm[a * m + c];
-        t0Re[a] += dr * u.wRe[c] - di * u.wIm[c];
-        t0Im[a] += dr * u.wIm[c] + di * u.wRe[c];
-      }
-    }
+    const { re: t0Re, im: t0Im } = OpeningSolver.dTimes(u, u.wRe, u.wIm);
     out.re.set(x0.re);
     out.im.set(x0.im);
     this.subtractColumns(m, t0Re, t0Im, out);

@@ -1,16 +1,506 @@
-// The readings match: which single cause (an opening, or a connection degraded to a fitted resistance, each with a
-// fitted load level for the service it affects) best explains a few measured voltage magnitudes.
-import type { Sheet } from '../../shared/sheet';
-import type { Reading, ReadingsMatchOptions, ReadingsMatchResult, StudyOutcome } from './study-types';
+// The readings match: which single cause (a run conductor opened, or a run conductor with a resistance in series:
+// a failing lug or splice; or no break at all), each with a fitted load level for the loads it affects, best
+// explains a few measured voltage magnitudes. Every candidate is evaluated through one factorization of the base
+// case (reading-model.ts), fitted by a coarse grid and golden-section refinement, ranked by its residual, and grouped
+// with the candidates whose predicted readings agree within the meter's tolerance.
+import type { ConductorId, Sheet, WhatIfChange } from '../../shared/sheet';
+import { buildNetwork, type BuiltNetwork } from '../network/build-network';
+import { runAdmittance } from '../network/run';
+import { EARTH_PIN, pinKey, type RunLayout } from '../network/types';
+import { analyse } from '../sparse/symbolic';
+import { factor, type NumericLu } from '../sparse/lu';
+import { solve } from '../sparse/solve';
+import { downstreamElements } from '../solve/downstream';
+import { solveBuiltNetwork, type Solution } from '../solve/solve-network';
+import type { ComplexVector } from '../linear-system';
+import { withoutExplicitZeros } from './opening-solver';
+import { runAsync, runSync, type SlicedStudy } from './run-study';
+import { prepareColumns, type Branch, type PreparedColumns, type ReadingRow } from './reading-model';
+import type { CandidateCause, CandidateGroup, MatchCandidate, Reading, ReadingsMatchOptions, ReadingsMatchResult, StudyOutcome, StudyProgress } from './study-types';
+
+const DEFAULT_TOLERANCE_PERCENT = 1;
+const DEFAULT_LEVEL_RANGE: [number, number] = [0.1, 3];
+const DEFAULT_OHMS_RANGE: [number, number] = [0.01, 100];
+/** Above this many affected load elements the level is not fitted (the update would be too wide). */
+const MAX_LEVEL_ELEMENTS = 240;
+const GRID = 13;
+const GOLDEN_STEPS = 28;
+
+const now = (): number => (typeof performance !== 'undefined' ? performance.now() : Date.now());
+const conductorWord = (c: ConductorId): string => (c === 'N' ? 'neutral' : c === 'PE' ? 'protective conductor' : `phase ${c}`);
+
+type Failure = { ok: false; error: { code: 'not-supported'; message: string; elementIds: string[] } };
+const fail = (message: string, elementIds: string[] = []): Failure => ({ ok: false, error: { code: 'not-supported', message, elementIds } });
+
+/** Minimum of f over [lo, hi] on a log scale: a grid, then golden section around the best point. */
+function minimiseLog(f: (v: number) => number, lo: number, hi: number): { at: number; value: number } {
+  const a = Math.log(lo);
+  const b = Math.log(hi);
+  let best = 0;
+  let bestValue = Infinity;
+  const values: number[] = [];
+  for (let i = 0; i < GRID; i++) {
+    const v = f(Math.exp(a + ((b - a) * i) / (GRID - 1)));
+    values.push(v);
+    if (v < bestValue) {
+      bestValue = v;
+      best = i;
+    }
+  }
+  if (!Number.isFinite(bestValue)) return { at: Math.exp(a + ((b - a) * best) / (GRID - 1)), value: Infinity };
+  let left = a + ((b - a) * Math.max(0, best - 1)) / (GRID - 1);
+  let right = a + ((b - a) * Math.min(GRID - 1, best + 1)) / (GRID - 1);
+  const ratio = (Math.sqrt(5) - 1) / 2;
+  let x1 = right - ratio * (right - left);
+  let x2 = left + ratio * (right - left);
+  let f1 = f(Math.exp(x1));
+  let f2 = f(Math.exp(x2));
+  for (let i = 0; i < GOLDEN_STEPS; i++) {
+    if (f1 <= f2) {
+      right = x2;
+      x2 = x1;
+      f2 = f1;
+      x1 = right - ratio * (right - left);
+      f1 = f(Math.exp(x1));
+    } else {
+      left = x1;
+      x1 = x2;
+      f1 = f2;
+      x2 = left + ratio * (right - left);
+      f2 = f(Math.exp(x2));
+    }
+  }
+  const [at, value] = f1 <= f2 ? [x1, f1] : [x2, f2];
+  return value <= bestValue ? { at: Math.exp(at), value } : { at: Math.exp(a + ((b - a) * best) / (GRID - 1)), value: bestValue };
+}
+
+interface Candidate {
+  cause: CandidateCause;
+  /** Index into network.runs, and the conductor's index in the run (undefined for 'none'). */
+  run?: number;
+  conductor?: number;
+  /** Load part indices whose level is fitted. */
+  parts: number[];
+  levelElementIds: string[];
+  /** For a load's own connection: the load part the series resistance (or opening) is in. */
+  loadPart?: number;
+}
+
+interface Fitted {
+  candidate: Candidate;
+  level: number;
+  ohms?: number;
+  predicted: Float64Array;
+  objective: number;
+}
+
+class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
+  private readonly rows: ReadingRow[];
+  private readonly measured: Float64Array;
+  private readonly readingPart: number[];
+  readonly candidates: Candidate[] = [];
+  readonly fitted: Fitted[] = [];
+  next = 0;
+  private cached?: { key: string; prepared: PreparedColumns };
+  private readonly tolerance: number;
+  private readonly levelRange: [number, number];
+  private readonly ohmsRange: [number, number];
+  skipped = 0;
+  unfittedLevels = 0;
+
+  constructor(
+    private readonly sheet: Sheet,
+    private readonly network: BuiltNetwork,
+    private readonly solution: Solution,
+    private readonly lu: NumericLu,
+    private readonly x0: ComplexVector,
+    rows: ReadingRow[],
+    readings: Reading[],
+    private readonly options: ReadingsMatchOptions,
+  ) {
+    this.rows = rows;
+    this.measured = Float64Array.from(readings, (r) => r.volts);
+    // Which load part each load reading is across (a series fault in that load's own connection divides it).
+    this.readingPart = readings.map((r) => {
+      if (r.at.kind !== 'load') return -1;
+      const at = r.at;
+      return network.loads.findIndex((p) => p.loadId === at.loadId && (at.element === undefined || p.label === at.element));
+    });
+    this.tolerance = options.tolerancePercent ?? DEFAULT_TOLERANCE_PERCENT;
+    this.levelRange = options.loadLevelRange ?? DEFAULT_LEVEL_RANGE;
+    this.ohmsRange = options.ohmsRange ?? DEFAULT_OHMS_RANGE;
+    this.listCandidates();
+  }
+
+  static prepare(sheet: Sheet, readings: Reading[], options: ReadingsMatchOptions): StudyOutcome<ReadingsMatcher> {
+    if (!Array.isArray(readings) || readings.length === 0) return fail('the readings match needs at least one reading');
+    for (const [name, range] of [['loadLevelRange', options.loadLevelRange], ['ohmsRange', options.ohmsRange]] as const) {
+      if (range && !(range[0] > 0 && range[1] > range[0] && Number.isFinite(range[1]))) return fail(`${name} must be two increasing positive numbers, got ${JSON.stringify(range)}`);
+    }
+    if (options.tolerancePercent !== undefined && !(options.tolerancePercent > 0)) return fail(`tolerancePercent must be positive, got ${options.tolerancePercent}`);
+    const network = buildNetwork(sheet);
+    const outcome = solveBuiltNetwork(network, sheet.settings, undefined, { constantImpedanceOnly: true });
+    if (!outcome.ok) return { ok: false, error: { ...outcome.error, message: `the base case does not solve: ${outcome.error.message}` } };
+    const { classes, system } = outcome.solution;
+    if (system.matrix.n === 0) return fail('the sheet has no unknowns to match readings against');
+    const rows: ReadingRow[] = [];
+    for (const [i, reading] of readings.entries()) {
+      const row = readingRow(sheet, network, outcome.solution, reading, i);
+      if (typeof row === 'string') return fail(row, [reading?.at && 'loadId' in reading.at ? reading.at.loadId : (reading?.at as { busId?: string })?.busId ?? ''].filter(Boolean));
+      rows.push(row);
+    }
+    const matrix = withoutExplicitZeros(system.matrix);
+    const lu = factor(analyse(matrix), matrix);
+    const x0 = solve(lu, system.rhsRe, system.rhsIm);
+    void classes;
+    return { ok: true, value: new ReadingsMatcher(sheet, network, outcome.solution, lu, x0, rows, readings, options) };
+  }
+
+  private listCandidates(): void {
+    const allParts = this.network.loads.map((_, k) => k);
+    const sources = Object.values(this.sheet.elements).filter((e) => e.kind === 'source').map((e) => e.id);
+    this.candidates.push({ cause: { kind: 'none' }, parts: allParts, levelElementIds: sources });
+    const causes = this.options.causes ?? {};
+    const partsOf = new Map<string, number[]>();
+    this.network.loads.forEach((p, k) => partsOf.set(p.loadId, [...(partsOf.get(p.loadId) ?? []), k]));
+    this.network.runs.forEach((layout, run) => {
+      const down = [...downstreamElements(this.sheet, layout.runId, 'downstream')].filter((id) => this.sheet.elements[id]?.kind === 'load');
+      const parts = down.flatMap((id) => partsOf.get(id) ?? []);
+      layout.conductors.forEach((k, conductor) => {
+        if (k.open) return;
+        if (this.options.conductors === 'neutrals' && k.conductor !== 'N') return;
+        if (causes.openings !== false) this.candidates.push({ cause: { kind: 'open-conductor', runId: layout.runId, conductor: k.conductor }, run, conductor, parts, levelElementIds: [layout.runId] });
+        if (causes.degradations !== false) {
+          this.candidates.push({ cause: { kind: 'degrade-conductor', runId: layout.runId, conductor: k.conductor, ohms: 0 }, run, conductor, parts, levelElementIds: [layout.runId] });
+        }
+      });
+    });
+    this.listConnectionCandidates(partsOf, causes);
+  }
+
+  /** A load's supply connection opened or degraded: single-element loads only (the series path is that element). */
+  private listConnectionCandidates(partsOf: Map<string, number[]>, causes: NonNullable<ReadingsMatchOptions['causes']>): void {
+    for (const connection of Object.values(this.sheet.connections)) {
+      const ends = [connection.to, connection.from];
+      const loadEnd = ends.find((e) => this.sheet.elements[e.elementId]?.kind === 'load' && e.terminal === 'supply');
+      if (!loadEnd) continue;
+      const parts = partsOf.get(loadEnd.elementId) ?? [];
+      if (parts.length !== 1) continue;
+      const loadIsTo = loadEnd === connection.to;
+      for (const [fromConductor, toConductor] of Object.entries(connection.conductorMap) as [ConductorId, ConductorId][]) {
+        const loadConductor = loadIsTo ? toConductor : fromConductor;
+        if (this.options.conductors === 'neutrals' && loadConductor !== 'N') continue;
+        const base = { connectionId: connection.id, conductor: fromConductor, loadId: loadEnd.elementId };
+        const common = { parts, levelElementIds: [loadEnd.elementId], loadPart: parts[0] };
+        if (causes.openings !== false) this.candidates.push({ cause: { kind: 'open-connection', ...base }, ...common });
+        if (causes.degradations !== false) this.candidates.push({ cause: { kind: 'degrade-connection', ...base, ohms: 0 }, ...common });
+      }
+    }
+  }
+
+  get finished(): boolean {
+    return this.next >= this.candidates.length;
+  }
+
+  progress(): StudyProgress {
+    return { done: this.next, total: this.candidates.length };
+  }
+
+  runSlice(ms: number, signal?: AbortSignal): void {
+    const end = now() + ms;
+    do {
+      if (signal?.aborted || this.finished) return;
+      const fitted = this.fit(this.candidates[this.next++]);
+      if (fitted) this.fitted.push(fitted);
+      else this.skipped++;
+    } while (now() < end);
+  }
+
+  private branchOf(cls: number): { cls: number; scale: number } {
+    return { cls, scale: cls >= 0 ? this.solution.system.scale[cls] : 0 };
+  }
+
+  /** The branches of a candidate: its run's conductors (all of them when coupled), then the affected load elements. */
+  private branches(c: Candidate, parts: number[]): { branches: Branch[]; runRows: number[] } {
+    const { classOf, offsetRe, offsetIm } = this.solution.classes;
+    const make = (p: number, q: number): Branch => {
+      const a = this.branchOf(classOf[p]);
+      const b = this.branchOf(classOf[q]);
+      return { a: a.cls, b: b.cls, sa: a.scale, sb: b.scale, wRe: offsetRe[p] - offsetRe[q], wIm: offsetIm[p] - offsetIm[q] };
+    };
+    const branches: Branch[] = [];
+    let runRows: number[] = [];
+    if (c.run !== undefined) {
+      const layout = this.network.runs[c.run];
+      runRows = layout.mutualCoupling ? layout.conductors.map((_, i) => i) : [c.conductor!];
+      for (const i of runRows) branches.push(make(layout.conductors[i].fromPin, layout.conductors[i].toPin));
+    }
+    for (const k of parts) branches.push(make(this.network.loads[k].p, this.network.loads[k].q));
+    return { branches, runRows };
+  }
+
+  /** D for a trial: the run block's change (opened, or R in series) and (level − 1) × each load element's admittance. */
+  private delta(layout: RunLayout | undefined, runRows: number[], index: number | undefined, ohms: number | 'open', level: number, parts: number[], loadPart?: number) {
+    const m = runRows.length + parts.length;
+    const dRe = new Float64Array(m * m);
+    const dIm = new Float64Array(m * m);
+    if (layout && index !== undefined) {
+      const y = this.network.stamps[layout.stampIndex].y;
+      const open = layout.conductors.map((k, i) => k.open || (ohms === 'open' && i === index));
+      const added = layout.conductors.map((k, i) => k.addedOhms + (ohms !== 'open' && i === index ? ohms : 0));
+      if (!layout.mutualCoupling) {
+        const z = layout.impedanceOhms[index][index];
+        let re = -y[index][index].re;
+        let im = -y[index][index].im;
+        if (ohms !== 'open') {
+          const zr = z.re + added[index];
+          const d = zr * zr + z.im * z.im;
+          re += zr / d;
+          im += -z.im / d;
+        }
+        dRe[0] = re;
+        dIm[0] = im;
+      } else {
+        const yNew = runAdmittance(layout.impedanceOhms, open, added);
+        runRows.forEach((i, a) =>
+          runRows.forEach((j, b) => {
+            dRe[a * m + b] = yNew[i][j].re - y[i][j].re;
+            dIm[a * m + b] = yNew[i][j].im - y[i][j].im;
+          }),
+        );
+      }
+    }
+    const offset = runRows.length;
+    parts.forEach((k, t) => {
+      const y = this.network.loads[k].y;
+      const at = (offset + t) * m + offset + t;
+      if (k === loadPart) {
+        // In series with the load's own connection: s·y / (1 + s·y·R), nothing when open.
+        let re = 0;
+        let im = 0;
+        if (ohms !== 'open') {
+          const sr = level * y.re;
+          const si = level * y.im;
+          const dr = 1 + sr * ohms;
+          const di = si * ohms;
+          const d = dr * dr + di * di;
+          re = (sr * dr + si * di) / d;
+          im = (si * dr - sr * di) / d;
+        }
+        dRe[at] = re - y.re;
+        dIm[at] = im - y.im;
+        return;
+      }
+      dRe[at] = (level - 1) * y.re;
+      dIm[at] = (level - 1) * y.im;
+    });
+    return { dRe, dIm };
+  }
+
+  private objective(predicted: Float64Array): number {
+    let sum = 0;
+    for (let r = 0; r < predicted.length; r++) {
+      const e = (this.measured[r] - predicted[r]) / Math.max(this.measured[r], 1);
+      sum += e * e;
+    }
+    return sum;
+  }
+
+  private fit(c: Candidate): Fitted | undefined {
+    let parts = c.parts;
+    if (parts.length > MAX_LEVEL_ELEMENTS) {
+      parts = [];
+      this.unfittedLevels++;
+    }
+    const key = `${c.run ?? 'none'}|${c.conductor ?? ''}|${c.loadPart ?? ''}|${parts.length}`;
+    const { branches, runRows } = this.branches(c, parts);
+    let prepared = this.cached?.key === key ? this.cached.prepared : undefined;
+    if (!prepared) {
+      prepared = prepareColumns(this.lu, this.x0, this.rows, branches);
+      this.cached = { key, prepared };
+    }
+    const layout = c.run !== undefined ? this.network.runs[c.run] : undefined;
+    const out = new Float64Array(this.rows.length);
+    const trial = (ohms: number | 'open', level: number): number => {
+      const { dRe, dIm } = this.delta(layout, runRows, c.conductor, ohms, level, parts, c.loadPart);
+      if (!prepared!.predict(dRe, dIm, out)) return Infinity;
+      if (c.loadPart !== undefined) {
+        // The model's branch holds the resistance; the load's own terminals see V / (1 + s·y·R), nothing when open.
+        const y = this.network.loads[c.loadPart].y;
+        const divide = ohms === 'open' ? 0 : 1 / Math.hypot(1 + level * y.re * ohms, level * y.im * ohms);
+        this.readingPart.forEach((k, r) => {
+          if (k === c.loadPart) out[r] *= divide;
+        });
+      }
+      return this.objective(out);
+    };
+    const [lo, hi] = parts.length ? this.levelRange : [1, 1];
+    const fitLevel = (ohms: number | 'open') => (parts.length ? minimiseLog((s) => trial(ohms, s), lo, hi) : { at: 1, value: trial(ohms, 1) });
+    let ohms: number | undefined;
+    let level: number;
+    let value: number;
+    const opening = c.cause.kind === 'open-conductor' || c.cause.kind === 'open-connection';
+    if (c.cause.kind === 'open-connection') {
+      // The load is cut off: its level changes nothing.
+      level = 1;
+      value = trial('open', 1);
+    } else if (c.cause.kind === 'degrade-conductor' || c.cause.kind === 'degrade-connection') {
+      // Alternate: the resistance for the current level, then the level for that resistance.
+      level = 1;
+      ohms = 1;
+      value = Infinity;
+      for (let round = 0; round < 4; round++) {
+        const r = minimiseLog((o) => trial(o, level), this.ohmsRange[0], this.ohmsRange[1]);
+        ohms = r.at;
+        const s = fitLevel(ohms);
+        level = s.at;
+        if (!(s.value < value * (1 - 1e-9))) {
+          value = Math.min(value, s.value);
+          break;
+        }
+        value = s.value;
+      }
+    } else {
+      const s = fitLevel(opening ? 'open' : 0);
+      level = s.at;
+      value = s.value;
+    }
+    if (!Number.isFinite(value)) return undefined;
+    trial(ohms ?? (opening ? 'open' : 0), level);
+    const cause: CandidateCause = c.cause.kind === 'degrade-conductor' || c.cause.kind === 'degrade-connection' ? { ...c.cause, ohms: ohms! } : c.cause;
+    return { candidate: { ...c, cause, parts }, level, ohms, predicted: out.slice(), objective: value };
+  }
+
+  result(cancelled: boolean): ReadingsMatchResult {
+    const candidates = this.fitted.map((f) => this.describe(f)).sort((a, b) => a.rmsPercent - b.rmsPercent || a.description.localeCompare(b.description));
+    // Greedy grouping: a candidate joins the first group whose leader predicts every reading within the tolerance.
+    const groups: CandidateGroup[] = [];
+    for (const c of candidates) {
+      const g = groups.find((group) =>
+        group.candidates[0].predictedVolts.every((v, r) => Math.abs(v - c.predictedVolts[r]) <= (this.tolerance / 100) * Math.max(this.measured[r], 1)),
+      );
+      if (g) g.candidates.push(c);
+      else groups.push({ candidates: [c], rmsVolts: c.rmsVolts, rmsPercent: c.rmsPercent });
+    }
+    const best = groups[0]?.candidates[0];
+    const next = groups[1];
+    const bestPercent = best?.rmsPercent ?? Infinity;
+    const ratio = next ? (bestPercent > 0 ? next.rmsPercent / bestPercent : Infinity) : Infinity;
+    const tol = this.tolerance;
+    const verdict: ReadingsMatchResult['certainty']['verdict'] = !best || bestPercent > 1.5 * tol
+      ? 'poor-fit'
+      : next && next.rmsPercent <= 1.5 * tol
+        ? 'ambiguous'
+        : !next || (next.rmsPercent > 2 * tol && ratio > 2)
+          ? 'clear'
+          : 'likely';
+    const assumptions = [
+      'Readings match: loads are constant impedances at a fitted level (the level stands for how much was switched on when the readings were taken), the same factor for every load the cause affects.',
+      'Readings match: candidates are the sound network, each run conductor opened or with a resistance in series (a failing lug at either end of the run or a splice along it), and the supply connection of each single-element load opened or degraded; breaker poles, the ties between buses and breakers and the connections of three-phase loads are not candidates yet.',
+      `Readings match: candidates whose predicted readings agree within ${tol} % of every reading are one group: the readings cannot tell them apart.`,
+    ];
+    if (this.skipped) assumptions.push(`Readings match: ${this.skipped} candidates leave part of the network without a reference (a protective conductor cut off, say) and change no reading of a load; they were left out.`);
+    if (this.unfittedLevels) assumptions.push(`Readings match: ${this.unfittedLevels} candidates affect more than ${MAX_LEVEL_ELEMENTS} load elements; their load level is kept at the drawn value.`);
+    return {
+      groups,
+      best,
+      fit: { rmsVolts: best?.rmsVolts ?? Infinity, rmsPercent: bestPercent, withinTolerance: bestPercent <= tol },
+      certainty: { gapVolts: next && best ? next.rmsVolts - best.rmsVolts : Infinity, ratio, verdict },
+      candidatesTried: this.next,
+      cancelled,
+      assumptions,
+    };
+  }
+
+  private describe(f: Fitted): MatchCandidate {
+    const predictedVolts = [...f.predicted];
+    const n = predictedVolts.length;
+    let sv = 0;
+    let sp = 0;
+    predictedVolts.forEach((v, r) => {
+      const e = this.measured[r] - v;
+      sv += e * e;
+      sp += ((100 * e) / Math.max(this.measured[r], 1)) ** 2;
+    });
+    const c = f.candidate;
+    const changes: Record<string, WhatIfChange> = {};
+    let description: string;
+    switch (c.cause.kind) {
+      case 'none':
+        description = 'no break: the network as drawn';
+        break;
+      case 'open-conductor':
+        description = `${conductorWord(c.cause.conductor)} of run ${this.nameOf(c.cause.runId)} open`;
+        changes.cause = { kind: 'open-conductor', runId: c.cause.runId, conductor: c.cause.conductor };
+        break;
+      case 'degrade-conductor':
+        description = `${conductorWord(c.cause.conductor)} of run ${this.nameOf(c.cause.runId)} with ${c.cause.ohms.toPrecision(3)} Ω in series (a failing lug or splice)`;
+        changes.cause = { kind: 'degrade-conductor', runId: c.cause.runId, conductor: c.cause.conductor, addedOhms: c.cause.ohms };
+        break;
+      case 'open-connection':
+        description = `${conductorWord(c.cause.conductor)} of connection ${c.cause.connectionId} to load ${this.nameOf(c.cause.loadId)} open`;
+        changes.cause = { kind: 'open-connection', connectionId: c.cause.connectionId, conductor: c.cause.conductor };
+        break;
+      case 'degrade-connection':
+        description = `${conductorWord(c.cause.conductor)} of connection ${c.cause.connectionId} to load ${this.nameOf(c.cause.loadId)} at ${c.cause.ohms.toPrecision(3)} Ω (a loose terminal)`;
+        changes.cause = { kind: 'degrade-connection', connectionId: c.cause.connectionId, conductor: c.cause.conductor, ohms: c.cause.ohms };
+        break;
+    }
+    if (c.parts.length && Math.abs(f.level - 1) > 1e-9) {
+      c.levelElementIds.forEach((id, i) => (changes[`level-${i + 1}`] = { kind: 'scale-loads', elementId: id, factor: f.level, scope: 'downstream' }));
+    }
+    return {
+      cause: c.cause,
+      description,
+      loadLevel: { elementId: c.cause.kind === 'none' ? undefined : c.levelElementIds[0], factor: f.level, loadCount: new Set(c.parts.map((k) => this.network.loads[k].loadId)).size },
+      predictedVolts,
+      rmsVolts: Math.sqrt(sv / n),
+      rmsPercent: Math.sqrt(sp / n),
+      changes,
+    };
+  }
+
+  private nameOf(id: string): string {
+    const name = this.sheet.elements[id]?.name;
+    return name && name !== id ? `${name} (${id})` : id;
+  }
+}
+
+/** A reading as a row over the unknowns, or what is wrong with it. */
+function readingRow(sheet: Sheet, network: BuiltNetwork, solution: Solution, reading: Reading, i: number): ReadingRow | string {
+  const where = `reading ${i + 1}`;
+  if (!reading || typeof reading !== 'object' || !reading.at) return `${where}: needs a point ("at") and a value in volts`;
+  if (!(typeof reading.volts === 'number' && Number.isFinite(reading.volts) && reading.volts >= 0)) return `${where}: volts must be a number of at least 0 (got ${String(reading.volts)})`;
+  let p: number | undefined;
+  let q: number | undefined;
+  const at = reading.at;
+  if (at.kind === 'load') {
+    const parts = network.loads.filter((part) => part.loadId === at.loadId);
+    if (sheet.elements[at.loadId]?.kind !== 'load' || parts.length === 0) return `${where}: "${at.loadId}" is not a connected load of the sheet`;
+    const part = at.element === undefined ? parts[0] : parts.find((x) => x.label === at.element);
+    if (!part) return `${where}: load ${at.loadId} has no element "${at.element}" (it has ${parts.map((x) => x.label).join(', ')})`;
+    p = part.p;
+    q = part.q;
+  } else if (at.kind === 'bus') {
+    if (sheet.elements[at.busId]?.kind !== 'bus') return `${where}: "${at.busId}" is not a bus of the sheet`;
+    p = network.pinIndex.get(pinKey(at.busId, 'bars', at.from));
+    q = at.to === 'earth' ? EARTH_PIN : network.pinIndex.get(pinKey(at.busId, 'bars', at.to));
+    if (p === undefined || q === undefined) return `${where}: bus ${at.busId} has no ${p === undefined ? at.from : at.to} bar`;
+  } else {
+    return `${where}: the point must be a load or a bus (got ${(at as { kind?: unknown }).kind as string})`;
+  }
+  const { classOf, offsetRe, offsetIm } = solution.classes;
+  const scale = solution.system.scale;
+  const cp = classOf[p];
+  const cq = classOf[q];
+  return { p: cp, q: cq, sp: cp >= 0 ? scale[cp] : 0, sq: cq >= 0 ? scale[cq] : 0, offRe: offsetRe[p] - offsetRe[q], offIm: offsetIm[p] - offsetIm[q] };
+}
 
 export function readingsMatchSync(sheet: Sheet, readings: Reading[], options: ReadingsMatchOptions = {}): StudyOutcome<ReadingsMatchResult> {
-  void sheet;
-  void readings;
-  void options;
-  return { ok: false, error: { code: 'not-supported', message: 'the readings match is being built', elementIds: [] } };
+  return runSync('readings match', () => ReadingsMatcher.prepare(sheet, readings, options), options);
 }
 
 /** The match in slices, yielding to the event loop between candidates; same result as readingsMatchSync. */
-export async function readingsMatch(sheet: Sheet, readings: Reading[], options: ReadingsMatchOptions = {}): Promise<StudyOutcome<ReadingsMatchResult>> {
-  return readingsMatchSync(sheet, readings, options);
+export function readingsMatch(sheet: Sheet, readings: Reading[], options: ReadingsMatchOptions = {}): Promise<StudyOutcome<ReadingsMatchResult>> {
+  return runAsync('readings match', () => ReadingsMatcher.prepare(sheet, readings, options), options);
 }

@@ -112,12 +112,19 @@ export interface Reading {
   volts: number;
 }
 
-/** A candidate cause; 'none' is the sound network with a fitted load level. */
+/**
+ * A candidate cause; 'none' is the sound network with a fitted load level. A degraded conductor is a resistance in
+ * series with one conductor of a run: a failing lug at either end of it or a bad splice along it (the readings
+ * cannot tell those apart: they are one series path). A load's supply connection (single-element loads:
+ * line-to-neutral and line-to-line) can be open or degraded too.
+ */
 export type CandidateCause =
   | { kind: 'none' }
   | { kind: 'open-conductor'; runId: string; conductor: ConductorId }
-  | { kind: 'open-connection'; connectionId: string; conductor: ConductorId }
-  | { kind: 'degrade-connection'; connectionId: string; conductor: ConductorId; ohms: number };
+  | { kind: 'degrade-conductor'; runId: string; conductor: ConductorId; ohms: number }
+  /** A load's own supply connection (conductor: the connection's from-side key, as in what-if changes). */
+  | { kind: 'open-connection'; connectionId: string; conductor: ConductorId; loadId: string }
+  | { kind: 'degrade-connection'; connectionId: string; conductor: ConductorId; loadId: string; ohms: number };
 
 export interface ReadingsMatchOptions extends StudyRunOptions {
   /** Candidate conductors: all (default) or only neutrals. */
@@ -131,7 +138,7 @@ export interface ReadingsMatchOptions extends StudyRunOptions {
   tolerancePercent?: number;
   /** Range of the fitted load level, a factor on the rated loads of the affected service (default 0.1 to 3). */
   loadLevelRange?: [number, number];
-  /** Range of a degraded connection's fitted resistance, ohms (default 0.01 to 100). */
+  /** Range of a degraded conductor's fitted resistance, ohms (default 0.01 to 100). */
   ohmsRange?: [number, number];
 }
 

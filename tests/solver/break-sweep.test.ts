@@ -214,6 +214,20 @@ describe('break sweep: ranking, progress and cancellation', () => {
     expect(ticks).toBeGreaterThan(0); // the event loop ran between slices
   });
 
+  it('the refined worst cases agree with a sweep that uses the load laws throughout', () => {
+    const screened = breakSweepSync(larkspur, { refineWorst: 5 });
+    const laws = breakSweepSync(larkspur, { loadModel: 'sheet' });
+    if (!screened.ok || !laws.ok) throw new Error('sweep failed');
+    const refined = screened.value.cases.filter((c) => c.loadModel === 'sheet');
+    expect(refined.length).toBe(5);
+    expect(laws.value.cases.every((c) => c.loadModel === 'sheet')).toBe(true);
+    for (const c of refined) {
+      const same = laws.value.cases.find((d) => d.runId === c.runId && d.conductor === c.conductor)!;
+      expect(c.severityPercent).toBeCloseTo(same.severityPercent, 9);
+      expect(c.worstOver?.volts).toBeCloseTo(same.worstOver!.volts, 9);
+    }
+  });
+
   it('the async and the sync forms give the same ranking', async () => {
     const sheet = buildingSheet(20, 5);
     const a = breakSweepSync(sheet);

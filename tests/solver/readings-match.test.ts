@@ -1,0 +1,191 @@
+// The readings match on synthetic readings: a known cause solved by the full solver (a fresh build of the sheet
+// with the cause and a load level applied, loads at constant impedance as the match assumes), ±1 % noise from a
+// seeded generator; the true cause must come back in the top group. Two runs in series with readings only beyond
+// both must come back as one group; sound readings must favour no break; bad readings get clear errors.
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { readSheet, type Sheet } from '../../shared/sheet';
+import { buildNetwork, readingsMatch, readingsMatchSync, type Reading } from '../../solver';
+import { mulberry32 } from '../../solver/bench/four-wire-network';
+import { NO_MODIFICATIONS, type Modifications } from '../../solver/network/modifications';
+import { downstreamElements } from '../../solver/solve/downstream';
+import { solveBuiltNetwork } from '../../solver/solve/solve-network';
+import { SheetBuilder, customRun } from './helpers/sheet-builder';
+
+function fixture(name: string): Sheet {
+  const read = readSheet(JSON.parse(readFileSync(join(__dirname, '..', '..', 'solver', 'fixtures', name), 'utf8')));
+  if (!read.ok) throw new Error(read.issues.map((i) => `${i.path}: ${i.message}`).join('; '));
+  return read.sheet;
+}
+
+function mods(partial: Partial<Modifications>): Modifications {
+  return { ...NO_MODIFICATIONS, ...partial, whatIfId: 'synthetic' };
+}
+
+/** Loads downstream of an element scaled by a level (as the scale-loads what-if does). */
+function levelOf(sheet: Sheet, elementId: string, factor: number): Map<string, number> {
+  return new Map([...downstreamElements(sheet, elementId, 'downstream')].filter((id) => sheet.elements[id].kind === 'load').map((id) => [id, factor]));
+}
+
+/** Readings at the chosen load elements from a fresh full solve with the cause applied, times (1 ± 1 % noise). */
+function synthetic(sheet: Sheet, m: Modifications, pick: (loadId: string, index: number) => boolean, seed: number, noise = 0.01): Reading[] {
+  const network = buildNetwork(sheet, m);
+  const outcome = solveBuiltNetwork(network, sheet.settings, undefined, { constantImpedanceOnly: true });
+  if (!outcome.ok) throw new Error(outcome.error.message);
+  const v = outcome.solution.volts;
+  const rng = mulberry32(seed);
+  return network.loads
+    .filter((p, i) => pick(p.loadId, i))
+    .map((p) => ({ at: { kind: 'load' as const, loadId: p.loadId, element: p.label }, volts: Math.hypot(v.re[p.p] - v.re[p.q], v.im[p.p] - v.im[p.q]) * (1 + noise * (2 * rng() - 1)) }));
+}
+
+const key = (c: { cause: { kind: string; runId?: string; conductor?: string } }) => `${c.cause.kind} ${c.cause.runId ?? ''} ${c.cause.conductor ?? ''}`.trim();
+
+describe('readings match on synthetic readings with ±1 % noise', () => {
+  // source of the readings: the solver's full path (fresh build and factorization) with the cause applied
+  const larkspur = fixture('larkspur-row.json');
+
+  for (const seed of [3, 17]) {
+    it(`an open apartment neutral with the apartment at 130 % load is in the top group (seed ${seed})`, () => {
+      const readings = synthetic(
+        larkspur,
+        mods({ openRunConductors: new Set(['apt-4-feeder|N']), loadScale: levelOf(larkspur, 'apt-4-feeder', 1.3) }),
+        (_, i) => i % 2 === 0,
+        seed,
+      );
+      const r = readingsMatchSync(larkspur, readings);
+      if (!r.ok) throw new Error(r.error.message);
+      const top = r.value.groups[0].candidates.map(key);
+      expect(top).toContain('open-conductor apt-4-feeder N');
+      expect(r.value.fit.withinTolerance).toBe(true);
+      expect(r.value.fit.rmsPercent).toBeLessThan(1); // uniform ±1 % noise has an RMS of 0.58 %
+      expect(r.value.certainty.verdict).toBe('clear');
+      expect(r.value.certainty.ratio).toBeGreaterThan(2);
+      // what shows the best on the drawing
+      expect(r.value.best!.changes.cause).toEqual({ kind: 'open-conductor', runId: 'apt-4-feeder', conductor: 'N' });
+    });
+  }
+
+  it('a lug of 3 Ω at the end of an apartment feeder is found as that neutral with about 3 Ω in series', () => {
+    // The cause is applied as a degraded connection (the lug replaces the tie), an independent network structure
+    // from the run-conductor resistance the match fits.
+    // Every load read: with both halves of apartment 2 read, the resistance and the level are both determined.
+    const readings = synthetic(larkspur, mods({ degradedConnections: new Map([['c-apt-2-feeder-to|N', 3]]) }), () => true, 5);
+    const r = readingsMatchSync(larkspur, readings);
+    if (!r.ok) throw new Error(r.error.message);
+    const hit = r.value.groups[0].candidates.find((c) => key(c) === 'degrade-conductor apt-2-feeder N');
+    expect(hit, r.value.groups[0].candidates.map((c) => c.description).join('; ')).toBeDefined();
+    if (hit!.cause.kind !== 'degrade-conductor') throw new Error('not a degradation');
+    expect(hit!.cause.ohms).toBeGreaterThan(2.4);
+    expect(hit!.cause.ohms).toBeLessThan(3.6);
+  });
+
+  it('a loose neutral terminal of one load (8 Ω) is found as that connection with about 8 Ω', () => {
+    const readings = synthetic(larkspur, mods({ degradedConnections: new Map([['c-apt-3-kitchen|N', 8]]) }), () => true, 13);
+    const r = readingsMatchSync(larkspur, readings, { conductors: 'neutrals' });
+    if (!r.ok) throw new Error(r.error.message);
+    const hit = r.value.groups[0].candidates.find((c) => c.cause.kind === 'degrade-connection' && c.cause.connectionId === 'c-apt-3-kitchen');
+    expect(hit, r.value.groups[0].candidates.map((c) => c.description).join('; ')).toBeDefined();
+    if (hit!.cause.kind !== 'degrade-connection') throw new Error('not a degraded connection');
+    expect(hit!.cause.ohms).toBeGreaterThan(6.4);
+    expect(hit!.cause.ohms).toBeLessThan(9.6);
+    expect(hit!.changes.cause).toEqual({ kind: 'degrade-connection', connectionId: 'c-apt-3-kitchen', conductor: 'N', ohms: hit!.cause.ohms });
+  });
+
+  it('the model of a candidate reproduces the full solver exactly at the true parameters', () => {
+    // source: the full solver with the cause applied as a degraded connection (its own network structure)
+    const readings = synthetic(larkspur, mods({ degradedConnections: new Map([['c-apt-3-kitchen|N', 8]]) }), () => true, 1, 0);
+    const r = readingsMatchSync(larkspur, readings, { conductors: 'neutrals', ohmsRange: [7.9999, 8.0001], loadLevelRange: [0.9999, 1.0001] });
+    if (!r.ok) throw new Error(r.error.message);
+    const hit = r.value.groups.flatMap((g) => g.candidates).find((c) => c.cause.kind === 'degrade-connection' && c.cause.connectionId === 'c-apt-3-kitchen')!;
+    expect(hit.rmsPercent).toBeLessThan(1e-3);
+  });
+
+  it('sound readings at 80 % load favour no break', () => {
+    const readings = synthetic(larkspur, mods({ loadScale: levelOf(larkspur, 'utility', 0.8) }), (_, i) => i % 3 === 0, 9, 0.003);
+    const r = readingsMatchSync(larkspur, readings);
+    if (!r.ok) throw new Error(r.error.message);
+    expect(r.value.groups[0].candidates.map(key)).toContain('none');
+    expect(r.value.fit.withinTolerance).toBe(true);
+  });
+});
+
+describe('readings match: locations the readings cannot tell apart', () => {
+  // Two runs in series (service → junction → panel) with readings only at the panel's loads: a neutral open in
+  // either run gives the same readings (common practice, no source: series elements carry the same current).
+  const LINE: [number, number] = [0.1, 0.043]; // Ω per 1000 ft, our own figures
+  const run = () => customRun(80, { A: LINE, B: LINE, C: LINE, N: LINE });
+  const sheet = new SheetBuilder('two in series')
+    .source('src', { nominalVolts: 208, strength: 'fault-current', faultCurrentKa: 20, xOverR: 6 })
+    .bus('service', { role: 'service', neutralGroundBond: true })
+    .electrode('rod', 25)
+    .run('first', run())
+    .bus('junction', { role: 'junction', groundBar: false })
+    .run('second', run())
+    .bus('panel', { groundBar: false })
+    .load('lamps', { ratedVolts: 120, kw: 0.5, loadKind: 'heating' })
+    .load('heater', { ratedVolts: 120, kw: 1.5, loadKind: 'heating' })
+    .load('desk', { ratedVolts: 120, kw: 1, loadKind: 'heating' })
+    .connect('src', 'out', 'service', 'bars', ['A', 'B', 'C', 'N'])
+    .connect('service', 'bars', 'rod', 'lead', ['PE'])
+    .connect('service', 'bars', 'first', 'from', ['A', 'B', 'C', 'N'])
+    .connect('first', 'to', 'junction', 'bars', ['A', 'B', 'C', 'N'])
+    .connect('junction', 'bars', 'second', 'from', ['A', 'B', 'C', 'N'])
+    .connect('second', 'to', 'panel', 'bars', ['A', 'B', 'C', 'N'])
+    .connect('panel', 'bars', 'lamps', 'supply', { A: 'A', N: 'N' })
+    .connect('panel', 'bars', 'heater', 'supply', { B: 'A', N: 'N' })
+    .connect('panel', 'bars', 'desk', 'supply', { C: 'A', N: 'N' })
+    .sheet();
+
+  it('an open neutral in either run comes back as one group', async () => {
+    const readings = synthetic(sheet, mods({ openRunConductors: new Set(['second|N']) }), () => true, 21);
+    const progress: number[] = [];
+    const r = await readingsMatch(sheet, readings, { conductors: 'neutrals', onProgress: ({ done }) => progress.push(done) });
+    if (!r.ok) throw new Error(r.error.message);
+    const top = r.value.groups[0].candidates.map(key);
+    expect(top).toContain('open-conductor second N');
+    expect(top).toContain('open-conductor first N');
+    expect(r.value.groups[0].candidates.length).toBeGreaterThanOrEqual(2);
+    // the two openings predict the same readings to well within the meter's 1 %
+    const [a, b] = r.value.groups[0].candidates.filter((c) => c.cause.kind === 'open-conductor');
+    a.predictedVolts.forEach((v, i) => expect(Math.abs(v - b.predictedVolts[i])).toBeLessThan(0.01 * readings[i].volts));
+    expect(progress[progress.length - 1]).toBe(r.value.candidatesTried);
+    // A floating wye: the 0.5 kW lamps see far more than 120 V (Millman; common practice)
+    expect(r.value.best!.predictedVolts[0]).toBeGreaterThan(130);
+  });
+
+  it('a reading across the junction tells them apart', () => {
+    const readings = synthetic(sheet, mods({ openRunConductors: new Set(['second|N']) }), () => true, 21);
+    const network = buildNetwork(sheet, mods({ openRunConductors: new Set(['second|N']) }));
+    const outcome = solveBuiltNetwork(network, sheet.settings, undefined, { constantImpedanceOnly: true });
+    if (!outcome.ok) throw new Error(outcome.error.message);
+    const v = outcome.solution.volts;
+    // With the first run's neutral open the junction's neutral floats too; with the second's it stays put.
+    const jA = network.pinIndex.get('junction|bars|A')!;
+    const jN = network.pinIndex.get('junction|bars|N')!;
+    readings.push({ at: { kind: 'bus', busId: 'junction', from: 'A', to: 'N' }, volts: Math.hypot(v.re[jA] - v.re[jN], v.im[jA] - v.im[jN]) });
+    const r = readingsMatchSync(sheet, readings, { conductors: 'neutrals' });
+    if (!r.ok) throw new Error(r.error.message);
+    const top = r.value.groups[0].candidates.map(key);
+    expect(top).toContain('open-conductor second N');
+    expect(top).not.toContain('open-conductor first N');
+  });
+});
+
+describe('readings match: bad readings', () => {
+  const larkspur = fixture('larkspur-row.json');
+  it('names the reading and what is wrong with it', () => {
+    const bad = readingsMatchSync(larkspur, [
+      { at: { kind: 'load', loadId: 'apt-4-lights' }, volts: 120 },
+      { at: { kind: 'load', loadId: 'no-such-load' }, volts: 118 },
+    ]);
+    expect(bad.ok).toBe(false);
+    if (bad.ok) return;
+    expect(bad.error.message).toBe('reading 2: "no-such-load" is not a connected load of the sheet');
+    const negative = readingsMatchSync(larkspur, [{ at: { kind: 'bus', busId: 'main-panel', from: 'A', to: 'N' }, volts: -3 }]);
+    expect(!negative.ok && negative.error.message).toBe('reading 1: volts must be a number of at least 0 (got -3)');
+    const empty = readingsMatchSync(larkspur, []);
+    expect(!empty.ok && empty.error.message).toBe('the readings match needs at least one reading');
+  });
+});
