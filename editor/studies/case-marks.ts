@@ -8,6 +8,8 @@ import type { Viewport } from '../canvas/viewport';
 import { FAULT_TYPE_SHORT } from './fault-labels';
 import { formatKa } from './fault-study-rows';
 
+const ohmsText = (ohms: number) => (ohms < 10 ? ohms.toFixed(2) : ohms.toFixed(1));
+
 export interface CaseMark {
   key: string;
   kind: 'fault' | 'candidate';
@@ -30,11 +32,17 @@ export function caseMarks(
 ): CaseMark[] {
   const marks: CaseMark[] = [];
   for (const c of changes) {
+    if (c.kind === 'degrade-conductor') {
+      // A resistance in series with a run's conductor (a failing splice): not drawn otherwise, unlike an opening.
+      const body = bodyOf(c.runId);
+      if (body) marks.push({ key: `splice-${c.runId}-${c.conductor}`, kind: 'candidate', elementId: c.runId, x: body.x, y: body.y + body.height / 2, label: `${ohmsText(c.addedOhms)} Ω in ${c.conductor}` });
+      continue;
+    }
     if (c.kind !== 'open-connection' && c.kind !== 'degrade-connection') continue;
     const elementId = landingOf(c.connectionId);
     const body = elementId ? bodyOf(elementId) : undefined;
     if (!elementId || !body) continue;
-    const label = c.kind === 'open-connection' ? `${c.conductor} open at this lug` : `${c.ohms < 10 ? c.ohms.toFixed(2) : c.ohms.toFixed(1)} Ω on ${c.conductor} at this lug`;
+    const label = c.kind === 'open-connection' ? `${c.conductor} open at this lug` : `${ohmsText(c.ohms)} Ω on ${c.conductor} at this lug`;
     marks.push({ key: `lug-${c.connectionId}-${c.conductor}`, kind: 'candidate', elementId, x: body.x, y: body.y + body.height / 2, label });
   }
   const fault = result?.fault;

@@ -35,6 +35,8 @@ describe('case marks', () => {
       (cid) => (cid === 'c-apt-2-feeder-to' ? 'apt-2' : undefined),
     );
     expect(marks).toEqual([{ key: 'lug-c-apt-2-feeder-to-N', kind: 'candidate', elementId: 'apt-2', x: 10, y: 24, label: '3.20 Ω on N at this lug' }]);
+    const splice = caseMarks(null, (id) => (id === 'apt-4-feeder' ? body : undefined), [{ kind: 'degrade-conductor', runId: 'apt-4-feeder', conductor: 'N', addedOhms: 33 }]);
+    expect(splice.map((m) => [m.elementId, m.label])).toEqual([['apt-4-feeder', '33.0 Ω in N']]);
   });
 
   it('moves the view only when the element is out of the free part, then centres it there at the same zoom', () => {

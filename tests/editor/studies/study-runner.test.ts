@@ -230,3 +230,37 @@ describe('the break sweep through the study session', () => {
     }
   });
 });
+
+describe('the readings match through the study session', () => {
+  it('ranks causes on apartment 4’s supply from two of its readings and shows the best candidate on the drawing', async () => {
+    // Synthetic readings: the voltages the open-neutral what-if gives at two of apartment 4's loads.
+    const { solveSheet } = await import('../../../solver');
+    const open = solveSheet(sheet, { whatIfId: 'open-apt-4-neutral' });
+    if (!open.ok) throw new Error(open.error.message);
+    const at = (id: string) => open.result.loads.find((l) => l.loadId === id)!.elements[0].volts;
+    const session = new SheetSession({ sheetId: 's', wsBase: '', editable: true, user: { id: 'u1', name: 'Rosa' }, solveMode: 'main', workerUrl: 'x.js' });
+    session.doc.transact(() => writeSheet(session.doc, sheet), 'seed');
+    const said: string[] = [];
+    const studies = new StudySession(session, (t) => said.push(t), () => fakeWorker([]));
+    try {
+      studies.runReadingsMatch([
+        { at: { kind: 'load', loadId: 'apt-4-lights' }, volts: at('apt-4-lights') },
+        { at: { kind: 'load', loadId: 'apt-4-kitchen' }, volts: at('apt-4-kitchen') },
+      ]);
+      await until(() => studies.store.get().match.status !== 'running', 'the match');
+      const m = studies.store.get().match;
+      expect(m.status, m.error?.message).toBe('done');
+      expect(m.result!.groups.length).toBeGreaterThan(0);
+      expect(m.result!.best).toBe(m.result!.groups[0].candidates[0]);
+      // Every candidate the match names lies on apartment 4's supply path (its feeder, its loads' lugs, the service).
+      for (const c of m.result!.groups[0].candidates) expect(c.description).toMatch(/apt-4|service-lateral/);
+      // The best is on the drawing at once, as a trial: its cause and its fitted load level.
+      const trial = session.ui.get().trialChanges;
+      expect(trial).toEqual(Object.values(m.result!.best!.changes));
+      expect(said.at(-1)).toContain('Best match');
+    } finally {
+      studies.destroy();
+      session.destroy();
+    }
+  });
+});
