@@ -1,7 +1,7 @@
 // The studies in a real browser on the demo building: open the sheet, run the fault study (in the study worker),
 // sort by current, tap the largest case and see that fault on the drawing (its mark, the bus's voltages falling),
 // filter, see the voltage profile of the base case beside the fault, run the break sweep and show its worst
-// opening, and see the loading; on a phone (cards) and a wide screen (table).
+// opening, match two pasted readings, and see the loading; on a phone (cards) and a wide screen (table).
 import type { Browser, Page } from 'playwright-core';
 import { assert, byPrefix, el, ensureWebBuild, launchBrowser, log, screenshot, seeTestId, startServer, type ServerProcess } from './harness';
 import { demoProjectId, openAs, PHONE, WIDE } from './editor-support';
@@ -119,6 +119,20 @@ async function journey(browser: Browser, server: ServerProcess, sheetId: string,
   assert(open, `the drawing does not show ${opening} open after tapping its row`);
   log(`${name}: worst opening ${opening}`);
   await screenshot(page, `studies-${name}-sweep`);
+
+  // The readings match: a bad paste is refused line by line; a good one runs, and the best candidate is shown.
+  await el(page, 'study-tab-readings').click();
+  await el(page, 'readings-csv').fill('Apartment 4 lighting, 186\nNo such panel, 120');
+  await el(page, 'readings-csv-use').click();
+  const refused = (await el(page, 'readings-csv-problems').textContent()) ?? '';
+  assert(/Line 2: no load or bus is called "No such panel"/.test(refused), `the paste's problems read "${refused}"`);
+  await el(page, 'readings-csv').fill('Apartment 4 lighting, 186\nApartment 4 kitchen receptacles, 19');
+  await el(page, 'readings-csv-use').click();
+  assert((await byPrefix(page, 'reading-volts-').count()) === 2, 'the two pasted readings are not listed');
+  await el(page, 'match-run').click();
+  await seeTestId(page, 'match-result');
+  await seeTestId(page, 'match-shown');
+  await screenshot(page, `studies-${name}-readings`);
 
   // The loading of the case on show.
   await el(page, 'study-tab-loading').click();
