@@ -112,10 +112,17 @@ async function journey(browser: Browser, server: ServerProcess, sheetId: string,
   const opening = ((await first.getAttribute('data-testid')) ?? '').replace('sweep-case-', '');
   await first.click();
   await seeTestId(page, 'sweep-shown');
-  const open = await page.evaluate((key) => {
-    const probe = (window as unknown as { __phasewright?: { session: { results: { get(): { drawn: { openConductors: Set<string> } | null } } } } }).__phasewright;
-    return probe?.session.results.get().drawn?.openConductors.has(key) ?? false;
-  }, opening);
+  // The solve of the opening answers from the worker a moment after the tap.
+  const open = await page
+    .waitForFunction(
+      (key) => {
+        const probe = (window as unknown as { __phasewright?: { session: { results: { get(): { drawn: { openConductors: Set<string> } | null } } } } }).__phasewright;
+        return probe?.session.results.get().drawn?.openConductors.has(key) ?? false;
+      },
+      opening,
+      { timeout: 15_000 },
+    )
+    .then(() => true, () => false);
   assert(open, `the drawing does not show ${opening} open after tapping its row`);
   log(`${name}: worst opening ${opening}`);
   await screenshot(page, `studies-${name}-sweep`);
