@@ -11,6 +11,8 @@ import type { DrawnResults } from '@/editor/results/value-tags';
 import type { CrewMember } from '@/editor/presence/crew';
 import type { ConnectPreview } from '@/editor/session/editor-state';
 import { conductorInk, drawingPalette, standingLook, type PhaseConvention } from '../theme/tokens';
+import type { CaseMark } from '@/editor/studies/case-marks';
+import { CaseMarks } from './case-marks';
 import { ConnectionLine } from './connection-line';
 import { CrewOverlay } from './crew-overlay';
 import { ElementSymbol, terminalRings } from './element-symbol';
@@ -36,6 +38,8 @@ export interface SheetCanvasProps {
   scheme: 'light' | 'dark';
   convention: PhaseConvention;
   showTerminals: boolean;
+  /** A study's case on show: where the fault is (or the candidate cause). */
+  marks?: readonly CaseMark[];
   gesture: ComponentProps<typeof GestureDetector>['gesture'];
   onGroundNode: (node: HTMLElement | null) => void;
   onWorldNode: (node: HTMLElement | null) => void;
@@ -148,6 +152,7 @@ function SheetCanvasView(props: SheetCanvasProps) {
                 />
               ))}
             </G>
+            {props.marks?.length ? <CaseMarks marks={props.marks} palette={palette} /> : null}
             <GestureMarks
               scene={scene}
               selection={selection}

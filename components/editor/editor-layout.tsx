@@ -29,6 +29,8 @@ export interface EditorLayoutProps {
   peek: ReactNode;
   /** Wide only: a view too wide for the side pane, over the canvas. */
   cover?: ReactNode;
+  /** Wide only: a pane under the canvas (the studies), the drawing still in sight above it. */
+  bottomPane?: ReactNode;
 }
 
 export function EditorLayout(p: EditorLayoutProps) {
@@ -67,6 +69,11 @@ export function EditorLayout(p: EditorLayoutProps) {
         ) : null}
         <View style={styles.centre}>
           {stage}
+          {p.bottomPane ? (
+            <ScrollView style={[styles.bottom, { backgroundColor: color.surface, borderTopColor: color.line }]} contentContainerStyle={styles.bottomBody} testID="bottom-pane">
+              {p.bottomPane}
+            </ScrollView>
+          ) : null}
           {p.toolBar}
         </View>
         <ScrollView style={[styles.right, { backgroundColor: color.surface, borderLeftColor: color.line }]} testID="side-pane">
@@ -88,4 +95,6 @@ const styles = StyleSheet.create({
   leftBody: { padding: space.md, gap: space.md },
   centre: { flex: 1 },
   right: { width: 380, flexGrow: 0, borderLeftWidth: 1 },
+  bottom: { flexGrow: 0, flexShrink: 0, height: '48%', borderTopWidth: 1 },
+  bottomBody: { padding: space.lg, gap: space.md },
 });

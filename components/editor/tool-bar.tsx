@@ -22,6 +22,9 @@ export interface ToolBarProps {
   onUndo: () => void;
   onRedo: () => void;
   onResults: () => void;
+  /** The studies panel (fault currents, voltage profile); absent hides the button. */
+  studiesOpen?: boolean;
+  onStudies?: () => void;
   /** More buttons at the bar's end (the pin tool). */
   extra?: ReactNode;
 }
@@ -40,6 +43,7 @@ export function ToolBar(p: ToolBarProps) {
       {p.editable ? <ToolButton icon="corner-up-left" label="Undo" disabled={!p.canUndo} onPress={p.onUndo} testID="tool-undo" /> : null}
       {p.editable ? <ToolButton icon="corner-up-right" label="Redo" disabled={!p.canRedo} onPress={p.onRedo} testID="tool-redo" /> : null}
       {p.showResults ? <ToolButton icon="activity" label="Results" active={p.resultsOpen} onPress={p.onResults} testID="tool-results" /> : null}
+      {p.onStudies ? <ToolButton icon="bar-chart-2" label="Studies" active={p.studiesOpen} onPress={p.onStudies} testID="tool-studies" /> : null}
       {p.extra}
     </View>
   );

@@ -36,5 +36,6 @@ export function ToolButton({ icon, label, onPress, active, disabled, testID }: T
 }
 
 const styles = StyleSheet.create({
-  button: { minWidth: 56, minHeight: touchTargetMin + 8, paddingHorizontal: 6, paddingVertical: 4, borderRadius: radius.md, alignItems: 'center', justifyContent: 'center', gap: 2 },
+  // Up to seven share a phone's width: each takes an equal share, never under a finger's width.
+  button: { flex: 1, minWidth: touchTargetMin, maxWidth: 84, minHeight: touchTargetMin + 8, paddingHorizontal: 2, paddingVertical: 4, borderRadius: radius.md, alignItems: 'center', justifyContent: 'center', gap: 2 },
 });

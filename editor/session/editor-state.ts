@@ -6,7 +6,7 @@ import type { Point, Rect } from '../../shared/symbols';
 export type ToolName = 'select' | 'cut' | 'place';
 
 /** The sliding panels on a phone (side panes on a wide screen show the inspector and results together). */
-export type PanelName = 'none' | 'palette' | 'inspector' | 'results' | 'pins' | 'crew' | 'about' | 'cautions' | 'schedule' | 'import-sheet';
+export type PanelName = 'none' | 'palette' | 'inspector' | 'results' | 'pins' | 'crew' | 'about' | 'cautions' | 'schedule' | 'import-sheet' | 'studies';
 
 export interface ConnectPreview {
   from: { elementId: string; terminal: string; point: Point };

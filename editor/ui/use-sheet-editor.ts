@@ -8,12 +8,14 @@ import { attachShortcuts } from '../gestures/shortcuts';
 import { canvasGesture } from '../gestures/touch-gestures';
 import { SheetSession } from '../session/sheet-session';
 import type { SolveMode } from '../solve/solve-scheduler';
+import { StudySession } from '../studies/study-session';
 import { editorActions, type EditorActions } from './editor-actions';
 
 export interface EditorHandle {
   session: SheetSession;
   canvas: CanvasController;
   actions: EditorActions;
+  studies: StudySession;
 }
 
 /** ?solveIn=worker or ?solveIn=main forces where the sheet is solved (tests and benchmarks). */
@@ -42,13 +44,15 @@ export function useSheetEditor(
     });
     const canvas = new CanvasController(session);
     session.connect();
-    const made = { session, canvas, actions: editorActions(session, canvas) };
+    const studies = new StudySession(session, (text) => canvas.actions.say(text));
+    const made = { session, canvas, actions: editorActions(session, canvas), studies };
     setHandle(made);
     // A probe for the benchmark and browser tests, only when asked for in the address.
     const probe = typeof window !== 'undefined' && new URLSearchParams(window.location.search).has('probe');
     if (probe) (window as unknown as Record<string, unknown>).__phasewright = made;
     return () => {
       if (probe) delete (window as unknown as Record<string, unknown>).__phasewright;
+      studies.destroy();
       canvas.destroy();
       session.destroy();
       setHandle(null);

@@ -29,6 +29,7 @@ import { SheetDetail } from '@/components/projects/sheet-detail';
 import { CoverPanel } from '@/components/schedule/cover-panel';
 import { SchedulePane } from '@/components/schedule/schedule-pane';
 import { SheetImportForm } from '@/components/schedule/sheet-import-form';
+import { StudiesPanel } from '@/components/studies/studies-panel';
 import { useTheme } from '@/components/theme/use-theme';
 import { Button, IconButton } from '@/components/ui/button';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
@@ -40,6 +41,7 @@ import { useScheduleView } from '@/editor/ui/use-schedule-view';
 import { MAX_CSV_BYTES } from '@/editor/schedule/schedule-csv';
 import { MAX_SHEET_JSON_BYTES } from '@/editor/import/sheet-import';
 import { usePinBoard } from '@/editor/ui/use-pin-board';
+import { useStudiesPanel } from '@/editor/studies/use-studies-panel';
 import { isApiError } from '@/shared/client/api-client';
 import { useSession, useSheet } from '@/shared/client/queries';
 
@@ -58,6 +60,7 @@ export default function SheetScreen() {
   const handle = useSheetEditor(role && user ? { sheetId, editable: role !== 'viewer', user: { id: user.id, name: user.name || user.email } } : null);
   const view = useEditorView(handle);
   const bindings = useCanvasBindings(handle);
+  const studies = useStudiesPanel(handle, view, isPhone);
   const a = handle?.actions;
   const sa = useMemo(() => (handle ? scheduleActions(handle.session) : null), [handle]);
   const scheduleView = useScheduleView(handle, view.snapshot, view.results.active ?? view.results.base, view.ui.scheduleBusId);
@@ -176,6 +179,7 @@ export default function SheetScreen() {
     cautions: { title: 'Cautions', body: cautions, testID: 'panel-cautions' },
     schedule: { title: 'Panel schedule', body: schedule, testID: 'panel-schedule-view' },
     'import-sheet': view.editable ? { title: 'Import a sheet', body: sheetImport, testID: 'panel-sheet-import' } : null,
+    studies: isPhone ? { title: 'Studies', body: <StudiesPanel layout="cards" view={studies.view} actions={studies.actions} selected={studies.selected} caution={studies.caution} />, testID: 'panel-studies' } : null,
   };
   const open = panels[ui.panel];
   const covering = !isPhone && (ui.panel === 'schedule' || ui.panel === 'import-sheet') ? open : null;
@@ -218,6 +222,7 @@ export default function SheetScreen() {
             scheme={scheme}
             convention={view.convention}
             showTerminals={view.editable && ui.tool === 'select'}
+            marks={studies.marks}
             gesture={bindings.gesture}
             onGroundNode={bindings.onGroundNode}
             onWorldNode={bindings.onWorldNode}
@@ -263,6 +268,8 @@ export default function SheetScreen() {
                 <ToolButton icon="flag" label="Pin" active={pins.placing} onPress={pins.placing ? pins.cancelPlacing : pins.startPin} testID="tool-pin" />
               )
             }
+            studiesOpen={ui.panel === 'studies'}
+            onStudies={() => a.openPanel(ui.panel === 'studies' ? 'none' : 'studies')}
           />
         }
         leftPane={view.editable ? <PaneSection title="Add an element">{palette}</PaneSection> : null}
@@ -300,6 +307,7 @@ export default function SheetScreen() {
             />
           ) : null
         }
+        bottomPane={!isPhone && ui.panel === 'studies' ? <StudiesPanel layout="table" view={studies.view} actions={studies.actions} selected={studies.selected} caution={studies.caution} onClose={a.closePanel} /> : null}
         panel={
           open ? (
             <SlidingPanel title={open.title} onClose={a.closePanel} testID={open.testID} maxHeightPercent={ui.panel === 'schedule' || ui.panel === 'import-sheet' ? 86 : undefined}>

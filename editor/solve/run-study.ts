@@ -1,0 +1,43 @@
+// Runs one study request and reports as it goes. The same function runs in the study worker and, where there is
+// no worker, on the main thread. Progress is sent at most every 50 ms (and at the end), not after every case.
+import { breakSweepSync, faultStudy, readingsMatchSync, type SolveFailure } from '../../solver';
+import type { StudyDone, StudyMessage, StudyRequest } from './study-request';
+
+type Outcome = { ok: true; result: StudyDone['result'] } | { ok: false; error: SolveFailure };
+
+export function runStudy(request: StudyRequest, post: (message: StudyMessage) => void, shouldCancel?: () => boolean): void {
+  const started = performance.now();
+  let lastPost = -Infinity;
+  const onProgress = (done: number, total: number) => {
+    const now = performance.now();
+    if (done < total && now - lastPost < 50) return;
+    lastPost = now;
+    post({ type: 'study-progress', id: request.id, done, total });
+  };
+  // The sweep and the match stop on an aborted signal; here it is raised when asked to (main thread only: a worker
+  // is ended instead).
+  const controller = typeof AbortController !== 'undefined' ? new AbortController() : undefined;
+  const signal = controller?.signal;
+  const progress = ({ done, total }: { done: number; total: number }) => {
+    if (shouldCancel?.()) controller?.abort();
+    onProgress(done, total);
+  };
+  try {
+    let out: Outcome;
+    if (request.study === 'fault') {
+      const r = faultStudy(request.sheet, { transformerTolerance: request.transformerTolerance, onProgress, shouldCancel });
+      out = r.ok ? { ok: true, result: r.study } : r;
+    } else if (request.study === 'break-sweep') {
+      const r = breakSweepSync(request.sheet, { conductors: request.conductors, onProgress: progress, signal });
+      out = r.ok ? { ok: true, result: r.value } : r;
+    } else {
+      const r = readingsMatchSync(request.sheet, request.readings, { conductors: request.conductors, onProgress: progress, signal });
+      out = r.ok ? { ok: true, result: r.value } : r;
+    }
+    const ms = performance.now() - started;
+    if (!out.ok) post({ type: 'study-failed', id: request.id, error: out.error });
+    else post({ type: 'study-done', id: request.id, study: request.study, result: out.result, ms } as StudyDone);
+  } catch (error) {
+    post({ type: 'study-failed', id: request.id, error: { code: 'internal', message: `the study failed unexpectedly: ${(error as Error).message}`, elementIds: [] } });
+  }
+}
