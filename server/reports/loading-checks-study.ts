@@ -5,8 +5,9 @@ import { loadingStudy, type LoadingStudy } from '../../solver';
 import type { ExtraStudy, StudyTable } from './extra-studies';
 import { fixed, limitRows } from './study-rows';
 
-/** Rows per table on the page; the rest are counted. */
+/** Rows per table on the page; the rest are counted. Conductor rows carry their rule and run tall. */
 const ROW_LIMIT = 25;
+const CONDUCTOR_LIMIT = 15;
 
 const STATUS_WORDS: Record<string, string> = {
   ok: 'ok',
@@ -62,10 +63,10 @@ function conductorTable(s: LoadingStudy): StudyTable {
   });
   return {
     title: 'Conductors (worst first)',
-    columns: ['Run', 'Cond.', 'Size', 'Amps', 'Ampacity A', '% amp.', 'Status', 'Rule applied'],
-    widths: [17, 6, 8, 7, 9, 7, 9, 37],
+    columns: ['Run', 'Cond.', 'Size', 'Amps', 'Ampacity', '% amp.', 'Status', 'Rule applied'],
+    widths: [16, 6, 8, 7, 9, 7, 9, 38],
     align: ['left', 'left', 'left', 'right', 'right', 'right', 'left', 'left'],
-    rows: limitRows(rows, ROW_LIMIT, 8),
+    rows: limitRows(rows, CONDUCTOR_LIMIT, 8),
   };
 }
 
@@ -86,7 +87,7 @@ function dropTable(s: LoadingStudy, sheet: Sheet): StudyTable {
   return {
     title: 'Voltage drop per run and from the start of its zone (3 % / 5 %)',
     columns: ['Run', 'Role', 'Run drop %', 'Cumulative %', 'Status', 'Path from the zone’s start'],
-    widths: [20, 8, 10, 11, 13, 38],
+    widths: [20, 8, 10, 13, 13, 36],
     align: ['left', 'left', 'right', 'right', 'left', 'left'],
     rows: limitRows(rows, ROW_LIMIT, 6),
   };
