@@ -97,7 +97,7 @@ function bondTable(s: LoadingStudy): StudyTable {
   const rows = s.bonds.map((b) => [b.name, b.role, b.permitted ? 'yes' : 'no', fixed(b.bondAmperes, 2), word(b.status), b.message]);
   return {
     title: 'Neutral-to-ground bonds',
-    columns: ['Bus', 'Role', 'Bond belongs here', 'Bond current A', 'Status', 'Finding'],
+    columns: ['Bus', 'Role', 'Bond allowed', 'Bond A', 'Status', 'Finding'],
     widths: [20, 10, 11, 11, 10, 38],
     align: ['left', 'left', 'left', 'right', 'left', 'left'],
     rows: limitRows(rows, ROW_LIMIT, 6),
