@@ -1,5 +1,6 @@
 // The results of the base case and every what-if as CSV: one row per value a reader checks (bus voltages, load
-// voltages, conductor currents, breaker loading), one column per case, so a spreadsheet lines them up.
+// voltages, conductor currents, breaker loading), one column per case, so a spreadsheet lines them up. The further
+// studies (loading checks, break sweep, voltage profile) follow, each table as its own block under a blank line.
 import type { SolveResult } from '../../solver';
 import type { StudyResults } from '../revisions/study';
 
@@ -68,5 +69,23 @@ export function resultsCsv(results: StudyResults): string {
   }
   const failed = cases.filter((c) => !c.ok);
   for (const c of failed) lines.push(['(case not solved)', '', c.name, '', c.error?.message ?? ''].map(csvField).join(','));
+  lines.push(...studyBlocks(results));
   return lines.join('\r\n') + '\r\n';
+}
+
+/** Each further study's tables: a blank line, a line naming the study and table, the column titles, the rows. */
+function studyBlocks(results: StudyResults): string[] {
+  const out: string[] = [];
+  for (const study of results.extra ?? []) {
+    if (!study.ok) {
+      out.push('', [`study: ${study.title}`, `not run: ${study.error ?? ''}`].map(csvField).join(','));
+      continue;
+    }
+    for (const t of study.tables) {
+      if (t.columns.length === 0) continue;
+      out.push('', [`study: ${study.title}`, t.title].map(csvField).join(','), t.columns.map(csvField).join(','));
+      for (const row of t.rows) out.push(row.map((c) => csvField(c === null ? '' : String(c))).join(','));
+    }
+  }
+  return out;
 }

@@ -2,11 +2,18 @@
 // profile): each registers here with a run function and a table, and then appears in every new revision's results,
 // its CSV export and its report without further changes. Register a study by adding it to EXTRA_STUDIES.
 import type { Sheet } from '../../shared/sheet';
+import { breakSweepStudy } from './break-sweep-study';
+import { loadingChecksStudy } from './loading-checks-study';
+import { voltageProfileStudy } from './voltage-profile-study';
 
 export interface StudyTable {
   title: string;
   columns: string[];
   rows: (string | number | null)[][];
+  /** Relative column widths on the page (equal when omitted). */
+  widths?: number[];
+  /** Per column; numbers read best right-aligned. */
+  align?: ('left' | 'right')[];
   /** Lines printed under the table (method, limits, what was skipped). */
   notes?: string[];
   /** A plot drawn above the table (the voltage profile), as standalone SVG in drawing units. */
@@ -29,8 +36,9 @@ export interface ExtraStudyOutcome {
   error?: string;
 }
 
-/** Studies known to this build. Loading checks, the break sweep and the voltage profile join here once they land. */
-export const EXTRA_STUDIES: ExtraStudy[] = [];
+/** Studies known to this build. */
+export const EXTRA_STUDIES: ExtraStudy[] = [loadingChecksStudy, breakSweepStudy, voltageProfileStudy];
+
 
 /** The titles the report names as "not run in this build" while their study is not registered. */
 export const PLANNED_STUDIES = [

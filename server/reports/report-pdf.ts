@@ -60,9 +60,10 @@ class Report {
     if (this.y + h > this.doc.page.height - M - 24) this.page();
   }
 
-  heading(text: string, level: 1 | 2 = 1) {
+  /** A heading; `keep` reserves room for what must follow it on the same page (a figure). */
+  heading(text: string, level: 1 | 2 = 1, keep = 40) {
     const size = level === 1 ? 15 : 11.5;
-    this.room(size + 40);
+    this.room(size + keep);
     this.y += level === 1 ? 10 : 6;
     this.doc.font('bold').fontSize(size).fillColor(INK).text(text, M, this.y, { width: this.width });
     this.y = this.doc.y + 4;
@@ -113,6 +114,15 @@ class Report {
     draw(header, 'bold', BAND);
     for (const row of rows) {
       const cells = row.map((c) => (c === null || c === undefined ? '—' : String(c)));
+      // A row with only its first cell (a "… and N more" line) spans the table.
+      if (cells.length > 1 && cells.slice(1).every((c) => c === '')) {
+        this.doc.font('text').fontSize(size);
+        const h = this.doc.heightOfString(cells[0], { width: this.width - 2 * pad }) + 2 * pad;
+        if (this.y + h > this.doc.page.height - M - 24) this.page();
+        this.doc.fillColor(MUTED).text(cells[0], M + pad, this.y + pad, { width: this.width - 2 * pad });
+        this.y += h;
+        continue;
+      }
       const h = rowHeight(cells, 'text');
       if (this.y + h > this.doc.page.height - M - 24) {
         this.page();
@@ -143,7 +153,8 @@ class Report {
   figure(svg: string, width: number, height: number) {
     const scale = Math.min(1, this.width / width);
     this.room(height * scale + 8);
-    SVGtoPDF(this.doc, svg, M, this.y, { width: width * scale, height: height * scale, fontCallback: pickFont });
+    // assumePt: the figure's units are points, as reserved here (svg-to-pdfkit otherwise reads them as CSS px).
+    SVGtoPDF(this.doc, svg, M, this.y, { width: width * scale, height: height * scale, fontCallback: pickFont, assumePt: true });
     this.y += height * scale + 8;
   }
 
@@ -255,9 +266,10 @@ const RUN_COLUMNS: Column[] = [
 ];
 
 function studyTable(rep: Report, t: StudyTable) {
-  rep.heading(t.title, 2);
+  const scale = t.figure ? Math.min(1, rep.width / t.figure.width) : 0;
+  rep.heading(t.title, 2, t.figure ? t.figure.height * scale + 8 : 40);
   if (t.figure) rep.figure(t.figure.svg, t.figure.width, t.figure.height);
-  if (t.columns.length > 0) rep.table(t.columns.map((c) => ({ title: c, width: 100 / t.columns.length })), t.rows);
+  if (t.columns.length > 0) rep.table(t.columns.map((c, i) => ({ title: c, width: t.widths?.[i] ?? 100 / t.columns.length, align: t.align?.[i] })), t.rows);
   if (t.notes) rep.bullets(t.notes);
 }
 
@@ -411,7 +423,9 @@ export async function renderReportPdf(input: ReportInput): Promise<Uint8Array> {
   // Further studies: those registered in this build, and the planned ones named as not run.
   for (const planned of PLANNED_STUDIES) {
     const got = results.extra.find((e) => e.id === planned.id);
-    rep.heading(planned.title);
+    // Keep the heading with a figure that opens the study.
+    const first = got?.ok ? got.tables[0]?.figure : undefined;
+    rep.heading(planned.title, 1, first ? first.height * Math.min(1, rep.width / first.width) + 40 : 40);
     if (!got) rep.para('Not run in this build of Phasewright.', { color: MUTED });
     else if (!got.ok) rep.para(`Could not be run: ${got.error}`);
     else

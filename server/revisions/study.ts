@@ -21,7 +21,7 @@ export interface StudyResults {
   base: CaseOutcome;
   whatIfs: CaseOutcome[];
   faultStudy: { ok: true; study: FaultStudyResult } | { ok: false; error: SolveFailure } | null;
-  /** Studies other modules add (loading checks, break sweep, voltage profile) when they exist. */
+  /** The further studies registered in server/reports/extra-studies.ts (loading checks, break sweep, voltage profile). */
   extra: ExtraStudyOutcome[];
 }
 
