@@ -1,7 +1,7 @@
 // A viewer link's page, open to anyone who has the link: the sheet read-only and live over the link's own socket,
 // with its results and what-ifs (trials stay in this browser, never saved) and its pins. To comment a visitor gives
 // a name (a guest session); a signed-in person comments under their own. A revoked or expired link says so.
-import { Stack, useLocalSearchParams } from 'expo-router';
+import { Stack, useLocalSearchParams, useRouter } from 'expo-router';
 import { useEffect, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { SheetCanvas } from '@/components/canvas/sheet-canvas';
@@ -40,6 +40,7 @@ const VISITOR = { id: 'visitor', name: 'Visitor' };
 export default function ViewLinkScreen() {
   const params = useLocalSearchParams<{ token: string }>();
   const token = String(params.token ?? '');
+  const router = useRouter();
   const { color, scheme } = useTheme();
   const { isPhone } = useResponsive();
   const info = useViewLink(token);
@@ -139,7 +140,7 @@ export default function ViewLinkScreen() {
     />
   );
   const pinPanel = <PinPanel {...pins.panel} askName={!me} naming={guest.isPending} onGiveName={giveName} />;
-  const about = <ViewLinkAbout sheetName={found.sheet.name} projectName={found.project.name} expiresAt={found.link.expiresAt} you={me} />;
+  const about = <ViewLinkAbout sheetName={found.sheet.name} projectName={found.project.name} expiresAt={found.link.expiresAt} you={me} onOpenRevisions={() => router.push(`/view/${token}/revisions`)} />;
   const cautions = <Cautions caution={view.caution} assumptions={view.assumptions} standardLabel={view.standardLabel} />;
   const panels: Record<string, { title: string; body: ReactNode; testID: string } | null> = {
     inspector: { title: view.inspector.kind === 'element' ? view.inspector.element.name || 'Element' : 'Details', body: inspector, testID: 'panel-inspector' },

@@ -1,7 +1,9 @@
 // What a viewer link's page says about the link itself: that it no longer works (revoked, expired or never
-// right), and, in its details panel, what it opens, until when, and under which name comments go.
+// right), and, in its details panel, what it opens, until when, under which name comments go, and the way to the
+// sheet's revisions.
 import { StyleSheet, View } from 'react-native';
 import { space } from '../theme/tokens';
+import { Button } from '../ui/button';
 import { formatDate } from '../ui/format';
 import { EmptyState } from '../ui/states';
 import { Text } from '../ui/text';
@@ -27,6 +29,8 @@ export interface ViewLinkAboutProps {
   projectName: string;
   expiresAt: string | null;
   you: { name: string; guest: boolean } | null;
+  /** Opens the sheet's issued revisions, to read, download or review. */
+  onOpenRevisions: () => void;
 }
 
 export function ViewLinkAbout(p: ViewLinkAboutProps) {
@@ -42,8 +46,9 @@ export function ViewLinkAbout(p: ViewLinkAboutProps) {
       <Text variant="small" tone="muted" testID="view-you">
         {p.you ? `Your comments go under the name ${p.you.name}${p.you.guest ? ' (guest)' : ''}.` : 'To comment, give your name when you add a pin.'}
       </Text>
+      <Button label="Revisions and reports" icon="layers" variant="secondary" compact style={styles.start} onPress={p.onOpenRevisions} testID="view-open-revisions" />
     </View>
   );
 }
 
-const styles = StyleSheet.create({ about: { gap: space.sm } });
+const styles = StyleSheet.create({ about: { gap: space.sm }, start: { alignSelf: 'flex-start' } });

@@ -1,6 +1,6 @@
 // One revision: who issued it and when, the solver's version and the input hash, its cases in a few figures, the
 // reviews, a review form, downloads, the comparison with the live sheet, and restore for owners.
-import { useState, type ReactNode } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
 import { Image, StyleSheet, View } from 'react-native';
 import type { ReviewVerdict, RevisionComparison as Comparison, RevisionSummary } from '@/shared/revisions';
 import { space } from '../theme/tokens';
@@ -57,6 +57,19 @@ export function RevisionDetail(p: RevisionDetailProps) {
   const r = p.revision;
   const [comment, setComment] = useState('');
   const [confirming, setConfirming] = useState(false);
+  // The drawing keeps its own proportions, so a wide sheet on a phone is not a strip in a tall empty box.
+  const [drawingAspect, setDrawingAspect] = useState<number | null>(null);
+  useEffect(() => {
+    let live = true;
+    Image.getSize(
+      p.drawingUrl,
+      (w, h) => live && w > 0 && h > 0 && setDrawingAspect(w / h),
+      () => undefined,
+    );
+    return () => {
+      live = false;
+    };
+  }, [p.drawingUrl]);
   const review = async (verdict: ReviewVerdict) => {
     if (await p.onReview(verdict, comment)) setComment('');
   };
@@ -83,7 +96,7 @@ export function RevisionDetail(p: RevisionDetailProps) {
 
       <Section title="Drawing as issued">
         <Card style={styles.drawing}>
-          <Image source={{ uri: p.drawingUrl }} style={styles.drawingImage} resizeMode="contain" accessibilityLabel={`The drawing of revision ${r.number}`} testID="revision-drawing" />
+          <Image source={{ uri: p.drawingUrl }} style={[styles.drawingImage, { aspectRatio: drawingAspect ?? 1.6 }]} resizeMode="contain" accessibilityLabel={`The drawing of revision ${r.number}`} testID="revision-drawing" />
         </Card>
       </Section>
 
@@ -94,7 +107,7 @@ export function RevisionDetail(p: RevisionDetailProps) {
               <Text variant="bodyStrong">{c.name}</Text>
               {c.ok ? (
                 <Text variant="small" tone="muted">
-                  {c.highestLoad ? `Highest ${pct(c.highestLoad.percentOfRating)} (${c.highestLoad.name})` : ''}
+                  {c.highestLoad ? `Load voltage: highest ${pct(c.highestLoad.percentOfRating)} of rating (${c.highestLoad.name})` : ''}
                   {c.lowestLoad ? ` · lowest ${pct(c.lowestLoad.percentOfRating)} (${c.lowestLoad.name})` : ''}
                   {c.faultKa !== undefined ? ` · fault ${c.faultKa.toFixed(2)} kA` : ''}
                 </Text>
@@ -180,7 +193,7 @@ const styles = StyleSheet.create({
   factValue: { flexGrow: 1, flexBasis: 200, minWidth: 0 },
   hash: { fontSize: 12 },
   drawing: { padding: space.sm },
-  drawingImage: { width: '100%', height: 360 },
+  drawingImage: { width: '100%', maxHeight: 480 },
   case: { gap: 2 },
   buttons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
 });

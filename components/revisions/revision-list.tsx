@@ -18,7 +18,8 @@ export interface RevisionListProps {
   canIssue: boolean;
   issuing: boolean;
   issueError: string | null;
-  onIssue: (note: string) => void;
+  /** Issues the next revision; true once issued, so the note box empties for the one after. */
+  onIssue: (note: string) => Promise<boolean>;
 }
 
 export function RevisionList({ revisions, selected, onSelect, canIssue, issuing, issueError, onIssue }: RevisionListProps) {
@@ -29,7 +30,7 @@ export function RevisionList({ revisions, selected, onSelect, canIssue, issuing,
         <Card style={styles.issue} testID="issue-revision">
           <TextField label="Note for the next revision" value={note} onChangeText={setNote} placeholder="What this revision is for" maxLength={2000} testID="revision-note" />
           <FormMessage message={issueError} testID="issue-error" />
-          <Button label="Issue a revision" icon="lock" loading={issuing} onPress={() => onIssue(note)} testID="issue-revision-button" />
+          <Button label="Issue a revision" icon="lock" loading={issuing} onPress={() => void onIssue(note).then((issued) => issued && setNote(''))} testID="issue-revision-button" />
           <Text variant="small" tone="faint">
             Freezes the sheet as it is now, with its results. Later edits never change it.
           </Text>

@@ -7,36 +7,9 @@ import { apiAs, demoProjectId, documentOf, newSheet, openAs, PHONE, symbolBox, W
 import { assert, el, ensureWebBuild, launchBrowser, log, screenshot, seeTestId, seeText, startServer } from './harness';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
+import { importScheduleCsv, openSheet, selectElement, sheetIdByName, until } from './schedule-steps';
 
 let current: Page | null = null;
-
-async function sheetIdByName(api: Awaited<ReturnType<typeof apiAs>>, projectId: string, name: string): Promise<string> {
-  const r = await api.get(`/api/projects/${projectId}/sheets`);
-  const s = (r.body.sheets as { id: string; name: string }[]).find((x) => x.name === name);
-  assert(s, `demo sheet ${name} is missing`);
-  return s.id;
-}
-
-async function until<T>(what: string, read: () => Promise<T>, ok: (v: T) => boolean, timeoutMs = 10_000): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  let last: T = await read();
-  while (!ok(last)) {
-    if (Date.now() > deadline) throw new Error(`${what}: still ${JSON.stringify(last)}`);
-    await new Promise((r) => setTimeout(r, 200));
-    last = await read();
-  }
-  return last;
-}
-
-async function openSheet(page: Page, url: string, sheetId: string) {
-  await page.goto(`${url}/sheets/${sheetId}?probe`);
-  await page.waitForFunction(() => document.querySelectorAll('[data-testid^="sym-"]').length > 10, undefined, { timeout: 30_000 });
-  await page.waitForFunction(() => !!(window as any).__phasewright, undefined, { timeout: 15_000 });
-}
-
-async function selectElement(page: Page, id: string) {
-  await page.evaluate((elementId) => (window as any).__phasewright.actions.selectElements([elementId]), id);
-}
 
 async function main() {
   ensureWebBuild();
@@ -110,15 +83,8 @@ async function main() {
 
     // The fixed file, chosen from disk: checked at once, then placed under the panel, connected, in one step.
     const good = ['circuit,description,phases,load,power factor,breaker', '13,Dessert case,A,0.9,0.9,20', '15,Grinder,C,0.6,0.9,20', '17,Blender,B,1.1,0.9,20'].join('\n');
-    const chooser = page.waitForEvent('filechooser');
-    await el(page, 'csv-pick').click();
-    await (await chooser).setFiles({ name: 'cafe-additions.csv', mimeType: 'text/csv', buffer: Buffer.from(good) });
-    await seeText(page, 'Text of cafe-additions.csv');
-    await seeText(page, /Place 3 circuits under Café panel/);
-    await screenshot(page, 'schedule-csv-preview-wide');
-    await el(page, 'csv-import-confirm').click();
+    await importScheduleCsv(page, { name: 'cafe-additions.csv', text: good }, 3, 'Café panel', 'Dessert case', () => screenshot(page, 'schedule-csv-preview-wide'));
     await seeTestId(page, 'schedule-table');
-    await seeText(page, 'Dessert case');
     const after = await until(
       'the imported circuits in the room',
       () => documentOf(owner, building),

@@ -78,7 +78,14 @@ export default function RevisionsScreen() {
         canIssue={role === 'owner' || role === 'editor'}
         issuing={issue.isPending}
         issueError={issue.error ? errorMessage(issue.error) : null}
-        onIssue={(note) => issue.mutate({ note }, { onSuccess: (r) => setChosen(r.number) })}
+        onIssue={async (note) => {
+          try {
+            setChosen((await issue.mutateAsync({ note })).number);
+            return true;
+          } catch {
+            return false;
+          }
+        }}
       />
     </ScrollView>
   );

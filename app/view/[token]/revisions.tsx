@@ -1,6 +1,6 @@
 // A sheet's revisions seen through a viewer link: no account needed to look, compare or download; a name (a guest
 // session) or a signed-in account to review or approve. Nothing here can issue or restore.
-import { Stack, useLocalSearchParams } from 'expo-router';
+import { Stack, useLocalSearchParams, useRouter } from 'expo-router';
 import { useState } from 'react';
 import { Linking, ScrollView, StyleSheet, View } from 'react-native';
 import { GuestNameForm } from '@/components/revisions/guest-name-form';
@@ -19,6 +19,7 @@ import { useGuestSignIn, useViewLink } from '@/shared/client/pin-queries';
 export default function LinkRevisionsScreen() {
   const params = useLocalSearchParams<{ token: string; number?: string }>();
   const token = String(params.token ?? '');
+  const router = useRouter();
   const { color } = useTheme();
   const view = useViewLink(token);
   const revisions = useLinkRevisions(token);
@@ -50,6 +51,7 @@ export default function LinkRevisionsScreen() {
     <View style={{ flex: 1, backgroundColor: color.ground }} testID="link-revisions-screen">
       {head}
       <ScrollView contentContainerStyle={styles.pane}>
+        <Button label="Back to the sheet" icon="arrow-left" variant="quiet" compact style={styles.start} onPress={() => router.push(`/view/${token}`)} testID="link-revisions-back" />
         <Text variant="label" tone="muted">
           {view.data.project.name} · viewer link
         </Text>
@@ -94,7 +96,7 @@ export default function LinkRevisionsScreen() {
             />
           </>
         ) : (
-          <RevisionList revisions={list} selected={null} onSelect={setChosen} canIssue={false} issuing={false} issueError={null} onIssue={() => undefined} />
+          <RevisionList revisions={list} selected={null} onSelect={setChosen} canIssue={false} issuing={false} issueError={null} onIssue={async () => false} />
         )}
       </ScrollView>
     </View>
