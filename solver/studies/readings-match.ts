@@ -12,11 +12,12 @@ import { factor, type NumericLu } from '../sparse/lu';
 import { solve } from '../sparse/solve';
 import { downstreamElements } from '../solve/downstream';
 import { solveBuiltNetwork, type Solution } from '../solve/solve-network';
-import type { ComplexVector } from '../linear-system';
+import type { ComplexVector, Factorization } from '../linear-system';
+import { NO_MODIFICATIONS, connectionConductorKey, runConductorKey, type Modifications } from '../network/modifications';
 import { withoutExplicitZeros } from './opening-solver';
 import { runAsync, runSync, type SlicedStudy } from './run-study';
 import { prepareColumns, type Branch, type PreparedColumns, type ReadingRow } from './reading-model';
-import type { CandidateCause, CandidateGroup, MatchCandidate, Reading, ReadingsMatchOptions, ReadingsMatchResult, StudyOutcome, StudyProgress } from './study-types';
+import type { CandidateCause, CandidateGroup, MatchCandidate, Reading, ReadingsMatchOptions, ReadingsMatchResult, StudyLoadModel, StudyOutcome, StudyProgress } from './study-types';
 
 const DEFAULT_TOLERANCE_PERCENT = 1;
 const DEFAULT_LEVEL_RANGE: [number, number] = [0.1, 3];
@@ -25,6 +26,14 @@ const DEFAULT_OHMS_RANGE: [number, number] = [0.01, 100];
 const MAX_LEVEL_ELEMENTS = 240;
 const GRID = 13;
 const GOLDEN_STEPS = 28;
+/** How many of the best constant-impedance fits are fitted again with the sheet's load laws (as the break sweep's worst 10). */
+const DEFAULT_REFINE_BEST = 10;
+/** A coarser search for the refinement: each trial there is a full solve. */
+const REFINE_GRID = 7;
+const REFINE_STEPS = 14;
+/** Rounds of resistance-then-level for a degradation in the refinement. */
+const REFINE_ROUNDS = 2;
+const at = (v: Float64Array, i: number): number => (i >= 0 ? v[i] : 0);
 
 const now = (): number => (typeof performance !== 'undefined' ? performance.now() : Date.now());
 const conductorWord = (c: ConductorId): string => (c === 'N' ? 'neutral' : c === 'PE' ? 'protective conductor' : `phase ${c}`);
@@ -33,29 +42,29 @@ type Failure = { ok: false; error: { code: 'not-supported'; message: string; ele
 const fail = (message: string, elementIds: string[] = []): Failure => ({ ok: false, error: { code: 'not-supported', message, elementIds } });
 
 /** Minimum of f over [lo, hi] on a log scale: a grid, then golden section around the best point. */
-function minimiseLog(f: (v: number) => number, lo: number, hi: number): { at: number; value: number } {
+function minimiseLog(f: (v: number) => number, lo: number, hi: number, grid = GRID, steps = GOLDEN_STEPS): { at: number; value: number } {
   const a = Math.log(lo);
   const b = Math.log(hi);
   let best = 0;
   let bestValue = Infinity;
   const values: number[] = [];
-  for (let i = 0; i < GRID; i++) {
-    const v = f(Math.exp(a + ((b - a) * i) / (GRID - 1)));
+  for (let i = 0; i < grid; i++) {
+    const v = f(Math.exp(a + ((b - a) * i) / (grid - 1)));
     values.push(v);
     if (v < bestValue) {
       bestValue = v;
       best = i;
     }
   }
-  if (!Number.isFinite(bestValue)) return { at: Math.exp(a + ((b - a) * best) / (GRID - 1)), value: Infinity };
-  let left = a + ((b - a) * Math.max(0, best - 1)) / (GRID - 1);
-  let right = a + ((b - a) * Math.min(GRID - 1, best + 1)) / (GRID - 1);
+  if (!Number.isFinite(bestValue)) return { at: Math.exp(a + ((b - a) * best) / (grid - 1)), value: Infinity };
+  let left = a + ((b - a) * Math.max(0, best - 1)) / (grid - 1);
+  let right = a + ((b - a) * Math.min(grid - 1, best + 1)) / (grid - 1);
   const ratio = (Math.sqrt(5) - 1) / 2;
   let x1 = right - ratio * (right - left);
   let x2 = left + ratio * (right - left);
   let f1 = f(Math.exp(x1));
   let f2 = f(Math.exp(x2));
-  for (let i = 0; i < GOLDEN_STEPS; i++) {
+  for (let i = 0; i < steps; i++) {
     if (f1 <= f2) {
       right = x2;
       x2 = x1;
@@ -71,7 +80,7 @@ function minimiseLog(f: (v: number) => number, lo: number, hi: number): { at: nu
     }
   }
   const [at, value] = f1 <= f2 ? [x1, f1] : [x2, f2];
-  return value <= bestValue ? { at: Math.exp(at), value } : { at: Math.exp(a + ((b - a) * best) / (GRID - 1)), value: bestValue };
+  return value <= bestValue ? { at: Math.exp(at), value } : { at: Math.exp(a + ((b - a) * best) / (grid - 1)), value: bestValue };
 }
 
 interface Candidate {
@@ -92,6 +101,10 @@ interface Fitted {
   ohms?: number;
   predicted: Float64Array;
   objective: number;
+  /** The loads' model of the fit: constant impedance through the base factors, or the sheet's load laws (refined). */
+  loadModel: StudyLoadModel;
+  /** Why solving again with the sheet's load laws failed (the constant-impedance fit stands). */
+  refineProblem?: string;
 }
 
 class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
@@ -107,6 +120,8 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
   private readonly ohmsRange: [number, number];
   skipped = 0;
   unfittedLevels = 0;
+  private refineQueue?: number[];
+  private readonly refineBest: number;
 
   constructor(
     private readonly sheet: Sheet,
@@ -114,10 +129,12 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     private readonly solution: Solution,
     private readonly lu: NumericLu,
     private readonly x0: ComplexVector,
+    private readonly factorization: Factorization | undefined,
     rows: ReadingRow[],
-    readings: Reading[],
+    private readonly readings: Reading[],
     private readonly options: ReadingsMatchOptions,
   ) {
+    this.refineBest = Math.max(0, Math.floor(options.refineBest ?? DEFAULT_REFINE_BEST));
     this.rows = rows;
     this.measured = Float64Array.from(readings, (r) => r.volts);
     // Which load part each load reading is across (a series fault in that load's own connection divides it).
@@ -152,7 +169,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     const matrix = withoutExplicitZeros(system.matrix);
     const lu = factor(analyse(matrix), matrix);
     const x0 = solve(lu, system.rhsRe, system.rhsIm);
-    return { ok: true, value: new ReadingsMatcher(sheet, network, outcome.solution, lu, x0, rows, readings, options) };
+    return { ok: true, value: new ReadingsMatcher(sheet, network, outcome.solution, lu, x0, outcome.factorization, rows, readings, options) };
   }
 
   private listCandidates(): void {
@@ -198,21 +215,86 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
   }
 
   get finished(): boolean {
-    return this.next >= this.candidates.length;
+    return this.next >= this.candidates.length && this.refineQueue !== undefined && this.refineQueue.length === 0;
+  }
+
+  /** How many of the best constant-impedance fits are fitted again with the sheet's load laws. */
+  private get refineTarget(): number {
+    return Math.min(this.refineBest, this.candidates.length);
   }
 
   progress(): StudyProgress {
-    return { done: this.next, total: this.candidates.length };
+    const refined = this.refineQueue ? this.refineTarget - this.refineQueue.length : 0;
+    return { done: this.next + refined, total: this.candidates.length + this.refineTarget };
   }
 
   runSlice(ms: number, signal?: AbortSignal): void {
     const end = now() + ms;
     do {
       if (signal?.aborted || this.finished) return;
-      const fitted = this.fit(this.candidates[this.next++]);
-      if (fitted) this.fitted.push(fitted);
-      else this.skipped++;
+      if (this.next < this.candidates.length) {
+        const fitted = this.fit(this.candidates[this.next++]);
+        if (fitted) this.fitted.push(fitted);
+        else this.skipped++;
+        continue;
+      }
+      if (!this.refineQueue) {
+        // The best fits by the constant-impedance model, fitted again with the sheet's load laws: far from rated
+        // voltage (an open neutral) constant-power and constant-current loads divide the voltage differently.
+        const order = this.fitted.map((_, i) => i).sort((a, b) => this.fitted[a].objective - this.fitted[b].objective);
+        this.refineQueue = order.slice(0, this.refineTarget).reverse();
+      }
+      const i = this.refineQueue.pop();
+      if (i !== undefined) this.fitted[i] = this.refine(this.fitted[i]);
     } while (now() < end);
+  }
+
+  /** The what-if modifications of a candidate at a trial resistance and level (the affected loads scaled). */
+  private modsOf(c: Candidate, ohms: number | 'open', level: number): Modifications {
+    const mods: Modifications = {
+      ...NO_MODIFICATIONS,
+      openRunConductors: new Set(),
+      addedRunOhms: new Map(),
+      openConnections: new Set(),
+      degradedConnections: new Map(),
+      loadScale: new Map(),
+      whatIfId: 'readings-match',
+    };
+    const cause = c.cause;
+    if (cause.kind === 'open-conductor') mods.openRunConductors.add(runConductorKey(cause.runId, cause.conductor));
+    else if (cause.kind === 'degrade-conductor' && ohms !== 'open') mods.addedRunOhms.set(runConductorKey(cause.runId, cause.conductor), ohms);
+    else if (cause.kind === 'open-connection') mods.openConnections.add(connectionConductorKey(cause.connectionId, cause.conductor));
+    else if (cause.kind === 'degrade-connection' && ohms !== 'open') mods.degradedConnections.set(connectionConductorKey(cause.connectionId, cause.conductor), ohms);
+    if (Math.abs(level - 1) > 1e-12) for (const k of c.parts) mods.loadScale.set(this.network.loads[k].loadId, level);
+    return mods;
+  }
+
+  /** A fit again with the sheet's load laws: a fresh build and solve per trial, from the constant-impedance answer. */
+  private refine(f: Fitted): Fitted {
+    const c = f.candidate;
+    const out = new Float64Array(this.rows.length);
+    let problem: string | undefined;
+    const trial = (ohms: number | 'open', level: number): number => {
+      const network = buildNetwork(this.sheet, this.modsOf(c, ohms, level));
+      const outcome = solveBuiltNetwork(network, this.sheet.settings, this.factorization);
+      if (!outcome.ok) {
+        problem = outcome.error.message;
+        return Infinity;
+      }
+      const v = outcome.solution.volts;
+      for (let r = 0; r < this.readings.length; r++) {
+        const pins = readingPins(this.sheet, network, this.readings[r]);
+        if (!pins) return Infinity;
+        const [p, q] = pins;
+        out[r] = Math.hypot(at(v.re, p) - at(v.re, q), at(v.im, p) - at(v.im, q));
+      }
+      return this.objective(out);
+    };
+    const found = this.search(c, c.parts.length > 0, trial, REFINE_GRID, REFINE_STEPS, { level: f.level, ohms: f.ohms }, REFINE_ROUNDS);
+    if (!found) return { ...f, refineProblem: problem ?? 'no trial solved with the sheet\'s load laws' };
+    const opening = c.cause.kind === 'open-conductor' || c.cause.kind === 'open-connection';
+    trial(found.ohms ?? (opening ? 'open' : 0), found.level);
+    return this.fittedOf(c, found, out.slice(), 'sheet');
   }
 
   private branchOf(cls: number): { cls: number; scale: number } {
@@ -333,8 +415,30 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
       }
       return this.objective(out);
     };
-    const [lo, hi] = parts.length ? this.levelRange : [1, 1];
-    const fitLevel = (ohms: number | 'open') => (parts.length ? minimiseLog((s) => trial(ohms, s), lo, hi) : { at: 1, value: trial(ohms, 1) });
+    const found = this.search(c, parts.length > 0, trial, GRID, GOLDEN_STEPS);
+    if (!found) return undefined;
+    const opening = c.cause.kind === 'open-conductor' || c.cause.kind === 'open-connection';
+    trial(found.ohms ?? (opening ? 'open' : 0), found.level);
+    return this.fittedOf({ ...c, parts }, found, out.slice(), 'constant-impedance');
+  }
+
+  private fittedOf(c: Candidate, found: { level: number; ohms?: number; value: number }, predicted: Float64Array, loadModel: StudyLoadModel): Fitted {
+    const cause: CandidateCause = c.cause.kind === 'degrade-conductor' || c.cause.kind === 'degrade-connection' ? { ...c.cause, ohms: found.ohms! } : c.cause;
+    return { candidate: { ...c, cause }, level: found.level, ohms: found.ohms, predicted, objective: found.value, loadModel };
+  }
+
+  /** The level (and a degradation's resistance) that minimise `trial`, starting from `start` when given. */
+  private search(
+    c: Candidate,
+    fitsLevel: boolean,
+    trial: (ohms: number | 'open', level: number) => number,
+    grid: number,
+    steps: number,
+    start?: { level: number; ohms?: number },
+    rounds = 4,
+  ): { level: number; ohms?: number; value: number } | undefined {
+    const [lo, hi] = fitsLevel ? this.levelRange : [1, 1];
+    const fitLevel = (ohms: number | 'open') => (fitsLevel ? minimiseLog((s) => trial(ohms, s), lo, hi, grid, steps) : { at: 1, value: trial(ohms, 1) });
     let ohms: number | undefined;
     let level: number;
     let value: number;
@@ -345,11 +449,13 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
       value = trial('open', 1);
     } else if (c.cause.kind === 'degrade-conductor' || c.cause.kind === 'degrade-connection') {
       // Alternate: the resistance for the current level, then the level for that resistance.
-      level = 1;
-      ohms = 1;
+      level = start?.level ?? 1;
+      ohms = start?.ohms ?? 1;
       value = Infinity;
-      for (let round = 0; round < 4; round++) {
-        const r = minimiseLog((o) => trial(o, level), this.ohmsRange[0], this.ohmsRange[1]);
+      // From a start, a decade either side of its resistance (within the range).
+      const [ohmsLo, ohmsHi] = start?.ohms ? [Math.max(this.ohmsRange[0], start.ohms / 10), Math.min(this.ohmsRange[1], start.ohms * 10)] : this.ohmsRange;
+      for (let round = 0; round < rounds; round++) {
+        const r = minimiseLog((o) => trial(o, level), ohmsLo, ohmsHi, grid, steps);
         ohms = r.at;
         const s = fitLevel(ohms);
         level = s.at;
@@ -364,10 +470,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
       level = s.at;
       value = s.value;
     }
-    if (!Number.isFinite(value)) return undefined;
-    trial(ohms ?? (opening ? 'open' : 0), level);
-    const cause: CandidateCause = c.cause.kind === 'degrade-conductor' || c.cause.kind === 'degrade-connection' ? { ...c.cause, ohms: ohms! } : c.cause;
-    return { candidate: { ...c, cause, parts }, level, ohms, predicted: out.slice(), objective: value };
+    return Number.isFinite(value) ? { level, ohms, value } : undefined;
   }
 
   result(cancelled: boolean): ReadingsMatchResult {
@@ -398,6 +501,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
           : 'likely';
     const assumptions = [
       'Readings match: loads are constant impedances at a fitted level (the level stands for how much was switched on when the readings were taken), the same factor for every load the cause affects.',
+      ...(this.refineTarget ? [`Readings match: the best ${this.refineTarget} candidates by that fit are fitted again with the sheet's load laws (full solves; marked), which decide the readings far from rated voltage, as under an open neutral.`] : []),
       'Readings match: candidates are the sound network, each run conductor opened or with a resistance in series (a failing lug at either end of the run or a splice along it), and the supply connection of each single-element load opened or degraded; breaker poles, the ties between buses and breakers and the connections of three-phase loads are not candidates yet.',
       `Readings match: candidates whose predicted readings agree within ${tol} % of every reading are one group: the readings cannot tell them apart.`,
     ];
@@ -409,6 +513,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
       fit: { rmsVolts: best?.rmsVolts ?? Infinity, rmsPercent: bestPercent, withinTolerance: bestPercent <= tol },
       certainty: { gapVolts: next && best ? next.rmsVolts - best.rmsVolts : Infinity, ratio, locationsInBestGroup, verdict },
       candidatesTried: this.next,
+      candidatesRefined: this.refineQueue ? this.refineTarget - this.refineQueue.length : 0,
       cancelled,
       assumptions,
     };
@@ -459,6 +564,8 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
       rmsVolts: Math.sqrt(sv / n),
       rmsPercent: Math.sqrt(sp / n),
       changes,
+      loadModel: f.loadModel,
+      ...(f.refineProblem ? { refineProblem: f.refineProblem } : {}),
     };
   }
 
@@ -468,29 +575,38 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
   }
 }
 
+/** The two pins a (checked) reading is across in a network built with modifications, or undefined. */
+function readingPins(sheet: Sheet, network: BuiltNetwork, reading: Reading): [number, number] | undefined {
+  const point = reading.at;
+  if (point.kind === 'load') {
+    const parts = network.loads.filter((x) => x.loadId === point.loadId);
+    const part = point.element === undefined ? parts[0] : parts.find((x) => x.label === point.element);
+    return part ? [part.p, part.q] : undefined;
+  }
+  if (sheet.elements[point.busId]?.kind !== 'bus') return undefined;
+  const p = network.pinIndex.get(pinKey(point.busId, 'bars', point.from));
+  const q = point.to === 'earth' ? EARTH_PIN : network.pinIndex.get(pinKey(point.busId, 'bars', point.to));
+  return p === undefined || q === undefined ? undefined : [p, q];
+}
+
 /** A reading as a row over the unknowns, or what is wrong with it. */
 function readingRow(sheet: Sheet, network: BuiltNetwork, solution: Solution, reading: Reading, i: number): ReadingRow | string {
   const where = `reading ${i + 1}`;
   if (!reading || typeof reading !== 'object' || !reading.at) return `${where}: needs a point ("at") and a value in volts`;
   if (!(typeof reading.volts === 'number' && Number.isFinite(reading.volts) && reading.volts >= 0)) return `${where}: volts must be a number of at least 0 (got ${String(reading.volts)})`;
-  let p: number | undefined;
-  let q: number | undefined;
   const at = reading.at;
   if (at.kind === 'load') {
     const parts = network.loads.filter((part) => part.loadId === at.loadId);
     if (sheet.elements[at.loadId]?.kind !== 'load' || parts.length === 0) return `${where}: "${at.loadId}" is not a connected load of the sheet`;
-    const part = at.element === undefined ? parts[0] : parts.find((x) => x.label === at.element);
-    if (!part) return `${where}: load ${at.loadId} has no element "${at.element}" (it has ${parts.map((x) => x.label).join(', ')})`;
-    p = part.p;
-    q = part.q;
+    if (at.element !== undefined && !parts.some((x) => x.label === at.element)) return `${where}: load ${at.loadId} has no element "${at.element}" (it has ${parts.map((x) => x.label).join(', ')})`;
   } else if (at.kind === 'bus') {
     if (sheet.elements[at.busId]?.kind !== 'bus') return `${where}: "${at.busId}" is not a bus of the sheet`;
-    p = network.pinIndex.get(pinKey(at.busId, 'bars', at.from));
-    q = at.to === 'earth' ? EARTH_PIN : network.pinIndex.get(pinKey(at.busId, 'bars', at.to));
-    if (p === undefined || q === undefined) return `${where}: bus ${at.busId} has no ${p === undefined ? at.from : at.to} bar`;
+    const bar = [at.from, at.to].find((k) => k !== 'earth' && !network.pinIndex.has(pinKey(at.busId, 'bars', k)));
+    if (bar) return `${where}: bus ${at.busId} has no ${bar} bar`;
   } else {
     return `${where}: the point must be a load or a bus (got ${(at as { kind?: unknown }).kind as string})`;
   }
+  const [p, q] = readingPins(sheet, network, reading)!;
   const { classOf, offsetRe, offsetIm } = solution.classes;
   const scale = solution.system.scale;
   const cp = classOf[p];

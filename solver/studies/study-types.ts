@@ -140,6 +140,11 @@ export interface ReadingsMatchOptions extends StudyRunOptions {
   loadLevelRange?: [number, number];
   /** Range of a degraded conductor's fitted resistance, ohms (default 0.01 to 100). */
   ohmsRange?: [number, number];
+  /**
+   * How many of the best fits by the constant-impedance model are fitted again with the sheet's load laws (full
+   * solves; default 10, 0 for none). Far from rated voltage (an open neutral) the load laws decide the readings.
+   */
+  refineBest?: number;
 }
 
 export interface MatchCandidate {
@@ -155,6 +160,10 @@ export interface MatchCandidate {
   rmsPercent: number;
   /** What-if changes that show this candidate on the drawing (the cause and the fitted load level). */
   changes: Record<string, WhatIfChange>;
+  /** The loads' model of the fit: constant impedance (through the base factors) or the sheet's load laws (refined). */
+  loadModel: StudyLoadModel;
+  /** Why fitting again with the sheet's load laws failed (the constant-impedance fit stands). */
+  refineProblem?: string;
 }
 
 export interface CandidateGroup {
@@ -184,6 +193,8 @@ export interface ReadingsMatchResult {
     verdict: 'clear' | 'likely' | 'ambiguous' | 'poor-fit';
   };
   candidatesTried: number;
+  /** Of them, the best fits fitted again with the sheet's load laws. */
+  candidatesRefined: number;
   cancelled: boolean;
   assumptions: string[];
 }
