@@ -28,7 +28,7 @@ export function ToolButton({ icon, label, onPress, active, disabled, testID }: T
       style={({ pressed }) => [styles.button, { backgroundColor: active ? color.primary : pressed ? color.raised : 'transparent' }]}
     >
       <Icon name={icon} size={20} color={ink} />
-      <Text variant="caption" style={{ color: ink }} numberOfLines={1}>
+      <Text variant="caption" style={[styles.label, { color: ink }]} numberOfLines={1}>
         {label}
       </Text>
     </Pressable>
@@ -36,6 +36,8 @@ export function ToolButton({ icon, label, onPress, active, disabled, testID }: T
 }
 
 const styles = StyleSheet.create({
-  // Up to seven share a phone's width: each takes an equal share, never under a finger's width.
-  button: { flex: 1, minWidth: touchTargetMin, maxWidth: 84, minHeight: touchTargetMin + 8, paddingHorizontal: 2, paddingVertical: 4, borderRadius: radius.md, alignItems: 'center', justifyContent: 'center', gap: 2 },
+  // Small enough that a seven-letter word fits a share of a 390 px bar.
+  label: { fontSize: 11, letterSpacing: -0.1 },
+  // Up to eight share a phone's width: each takes an equal share, never under a finger's width.
+  button: { flex: 1, minWidth: touchTargetMin, maxWidth: 84, minHeight: touchTargetMin + 8, paddingHorizontal: 0, paddingVertical: 4, borderRadius: radius.md, alignItems: 'center', justifyContent: 'center', gap: 2 },
 });
