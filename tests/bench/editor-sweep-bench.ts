@@ -4,7 +4,6 @@
 // in the app's own study worker, as a user's would. The same sweep by `breakSweepSync` in Node gives the ratio.
 // Prints figures; asserts nothing beyond the run having happened on the worker.
 import { loadavg } from 'node:os';
-import { performance } from 'node:perf_hooks';
 import type { Browser } from 'playwright-core';
 import { breakSweepSync } from '../../solver';
 import { buildingSheet } from '../../solver/bench/building-sheet';
@@ -70,10 +69,13 @@ export async function sweepBench(browser: Browser, server: ServerProcess): Promi
       await page.evaluate(() => {
         const w = window as any;
         w.__sweepPress = null;
-        w.__sweepDone = new Promise<number>((resolve) => {
+        w.__sweepArmed = performance.now();
+        w.__sweepDone = new Promise<{ ms: number; ended: string }>((resolve) => {
           document.addEventListener('pointerdown', (e) => (w.__sweepPress ??= e.timeStamp), { capture: true, once: true });
           const tick = () => {
-            if (w.__sweepPress !== null && document.querySelector('[data-testid^="sweep-case-"]')) requestAnimationFrame(() => resolve(performance.now() - w.__sweepPress));
+            const ended = document.querySelector('[data-testid^="sweep-case-"]') ? 'rows' : document.querySelector('[data-testid="sweep-error"]') ? 'error' : document.querySelector('[data-testid="sweep-summary"]') ? 'summary without rows' : performance.now() - w.__sweepArmed > 120_000 ? 'nothing after 120 s' : null;
+            const from = w.__sweepPress ?? w.__sweepArmed;
+            if (ended) requestAnimationFrame(() => resolve({ ms: performance.now() - from, ended: w.__sweepPress === null ? `${ended} (no pointerdown seen; timed from just before the press)` : ended }));
             else requestAnimationFrame(tick);
           };
           tick();
@@ -81,7 +83,12 @@ export async function sweepBench(browser: Browser, server: ServerProcess): Promi
       });
       await el(page, 'sweep-run').click();
       console.log(`  run ${run + 1}: pressed at ${new Date().toISOString()}`);
-      const pressToTableMs = await page.evaluate(() => (window as any).__sweepDone as Promise<number>, undefined);
+      const done = await page.evaluate(() => (window as any).__sweepDone as Promise<{ ms: number; ended: string }>, undefined);
+      const pressToTableMs = done.ms;
+      if (done.ended !== 'rows') {
+        const text = (await page.locator('[data-testid="studies-panel"]').textContent().catch(() => '')) ?? '';
+        throw new Error(`the sweep ended with ${done.ended} after ${done.ms.toFixed(0)} ms: ${text.slice(0, 400)}`);
+      }
       await seeTestId(page, 'sweep-note');
       const note = (await el(page, 'sweep-note').textContent()) ?? '';
       if (!/on the worker/.test(note)) throw new Error(`the sweep did not run in the study worker: "${note}"`);
@@ -100,6 +107,12 @@ export async function sweepBench(browser: Browser, server: ServerProcess): Promi
     console.log(
       `  Node breakSweepSync on the same sheet: best ${node.ms.toFixed(0)} ms (${node.runs.map((x) => x.toFixed(0)).join(', ')}) for ${node.cases} cases = ` +
         `${(node.cases / (node.ms / 1000)).toFixed(0)} cases/s; browser / Node ${(best.pressToTableMs / node.ms).toFixed(2)}`,
+    );
+    const worker = /in ([\d.]+) (ms|s) on the worker/.exec(best.note);
+    const workerMs = worker ? Number(worker[1]) * (worker[2] === 's' ? 1000 : 1) : NaN;
+    console.log(
+      `  of which in the worker about ${workerMs.toFixed(0)} ms (worker / Node ${(workerMs / node.ms).toFixed(2)}); the other ` +
+        `${(best.pressToTableMs - workerMs).toFixed(0)} ms is the page: the request sent, the answer received, the rows built and drawn`,
     );
     if (node.cases !== cases) console.log(`  NOTE: the browser counted ${cases} cases, Node ${node.cases}`);
     console.log(`  load average at the end ${load()}`);
