@@ -58,7 +58,15 @@ export async function sweepBench(browser: Browser, server: ServerProcess): Promi
     for (let run = 0; run < 2; run++) {
       await page.goto(`${server.url}/sheets/${id}?probe`);
       // The base case solved and drawn first, so the sweep does not share the machine with the first solve.
-      await page.waitForFunction(() => Boolean((window as any).__phasewright?.session.results.get().drawn), undefined, { timeout: 120_000 });
+      // The whole document synced (not the empty sheet shown before it arrives), then its solve drawn.
+      await page.waitForFunction(
+        (count) => {
+          const w = (window as any).__phasewright;
+          return performance.getEntriesByName('phasewright:synced').length > 0 && (w?.session.mirror.current.elements.size ?? 0) >= count && Boolean(w.session.results.get().drawn);
+        },
+        Object.keys(sheet.elements).length,
+        { timeout: 120_000 },
+      );
       await page.waitForTimeout(1000);
       await el(page, 'tool-studies').click();
       await seeTestId(page, 'studies-panel');
