@@ -1,11 +1,13 @@
 // Editor benchmark in headless Chromium on the web build: time to first render of a 2,000-element sheet, time
 // from an edit to updated voltages on the drawing for 100- and 1,000-element sheets, and frame times while
-// panning a 2,000-element sheet. Prints figures and their ratio to the targets; asserts nothing.
-// Run with `npm run bench:editor`.
+// panning a 2,000-element sheet, and the break sweep of a 1,000-bus sheet in the study worker (editor-sweep-bench.ts).
+// Prints figures and their ratio to the targets; asserts nothing.
+// Run with `npm run bench:editor`; `npm run bench:editor -- --sweep` runs the break sweep part alone.
 import { cpus, loadavg } from 'node:os';
 import { ensureWebBuild, launchBrowser, startServer } from '../e2e/harness';
 import { demoProjectId, newSheet, openAs, WIDE } from '../e2e/editor-support';
 import { generatedBuilding } from './generated-sheet';
+import { sweepBench } from './editor-sweep-bench';
 
 const TARGETS = { firstRenderMs: 1000, edit100Ms: 50, edit1000Ms: 250, panFps: 50 };
 
@@ -23,6 +25,10 @@ async function main() {
   const server = await startServer();
   const browser = await launchBrowser();
   try {
+    if (process.argv.includes('--sweep')) {
+      await sweepBench(browser, server);
+      return;
+    }
     const o = await openAs(browser, server, 'owner@example.com', WIDE);
     const projectId = await demoProjectId(o.api);
     const sheets: Record<number, string> = {};
@@ -173,6 +179,7 @@ async function main() {
     }
     console.log(`load average at the end ${loadavg().map((x) => x.toFixed(2)).join(' ')}`);
     await o.context.close();
+    await sweepBench(browser, server);
   } finally {
     await browser.close();
     await server.stop();
