@@ -10,13 +10,17 @@ import { iterateLoads } from '../solve/load-iteration';
 import { solveBuiltNetwork, type Solution } from '../solve/solve-network';
 import type { Factorization } from '../linear-system';
 import { LoadWatch, type CaseFigures } from './load-watch';
-import { OpeningSolver } from './opening-solver';
+import { BLOCK_COLUMNS, OpeningSolver, type OpeningUpdate } from './opening-solver';
 import { runAsync, runSync, type SlicedStudy } from './run-study';
 import type { BreakCase, BreakRanking, BreakSweepOptions, BreakSweepResult, StudyLoadModel, StudyOutcome, StudyProgress } from './study-types';
 
 const DEFAULT_REFINE_WORST = 10;
+/** Constant-impedance cases per step: a block of columns (see OpeningSolver.solveManyFromBase), a few ms of work. */
+const CASES_PER_STEP = 16;
 
 const now = (): number => (typeof performance !== 'undefined' ? performance.now() : Date.now());
+
+type CaseHead = Omit<BreakCase, keyof CaseFigures | 'method' | 'residual'>;
 
 interface Work {
   run: number;
@@ -129,8 +133,13 @@ export class BreakSweeper implements SlicedStudy<BreakSweepResult> {
 
   step(): void {
     if (this.next < this.work.length) {
-      const w = this.work[this.next++];
-      this.cases.push(this.solveCase(w, this.model));
+      if (this.model === 'constant-impedance') {
+        const batch = this.work.slice(this.next, this.next + CASES_PER_STEP);
+        this.next += batch.length;
+        this.cases.push(...this.solveConstantImpedance(batch));
+      } else {
+        this.cases.push(this.solveCase(this.work[this.next++], this.model));
+      }
       return;
     }
     if (!this.refineQueue) {
@@ -151,29 +160,81 @@ export class BreakSweeper implements SlicedStudy<BreakSweepResult> {
     this.cases[i] = refined.problem ? { ...c, refineProblem: refined.problem } : refined;
   }
 
-  /** The figures of one case (exposed for checks: `watch.lastVolts()` then holds its load voltages). */
-  solveCase(w: Work, model: StudyLoadModel): BreakCase {
+  private head(w: Work, model: StudyLoadModel): CaseHead {
     const layout = this.network.runs[w.run];
     const conductor = layout.conductors[w.conductor].conductor;
-    const head = {
+    return {
       runId: layout.runId,
       runName: this.sheet.elements[layout.runId]?.name ?? layout.runId,
       conductor,
       change: { kind: 'open-conductor' as const, runId: layout.runId, conductor },
       loadModel: model,
     };
+  }
+
+  /** The conductor carries nothing the matrix sees (both ends one node): the base case stands. */
+  private baseStands(head: CaseHead, model: StudyLoadModel): BreakCase {
+    const figures = model === 'sheet' ? this.watch.fromPins(this.solution.volts) : this.watch.fromUnknowns(this.x0);
+    return { ...head, ...figures, method: 'low-rank', residual: 0 };
+  }
+
+  /**
+   * Constant-impedance cases through the base factors, their columns solved in blocks. A case whose opening cuts
+   * a part off goes again in a block with the tie that holds it; one that still fails (or whose residual is too
+   * large) goes through the single-case path, and from there to a fresh solve.
+   */
+  private solveConstantImpedance(batch: readonly Work[]): BreakCase[] {
+    const model = 'constant-impedance';
+    const heads = batch.map((w) => this.head(w, model));
+    const updates = batch.map((w) => this.solver.update(this.network.runs[w.run], w.conductor));
+    const cases: (BreakCase | undefined)[] = new Array(batch.length);
+    const { rhsRe, rhsIm } = this.solution.system;
+    let pending: { index: number; update: OpeningUpdate }[] = [];
+    const failed: number[] = [];
+    updates.forEach((u, i) => {
+      if (!u) cases[i] = this.baseStands(heads[i], model);
+      else if (u.m > BLOCK_COLUMNS) failed.push(i);
+      else pending.push({ index: i, update: u });
+    });
+    for (const tied of [false, true]) {
+      const retry: { index: number; update: OpeningUpdate }[] = [];
+      for (const group of blocks(pending)) {
+        const block = this.solver.solveBlock(
+          group.map((g) => g.update),
+          rhsRe,
+          rhsIm,
+          this.x0,
+        );
+        const answered = group.map((_, j) => j).filter((j) => block.cases[j].tRe);
+        const figures = this.watch.fromBlock(block, answered);
+        answered.forEach((j, a) => {
+          const outcome = this.solver.verify(block, j, figures[a].xMax);
+          if (outcome.ok) cases[group[j].index] = { ...heads[group[j].index], ...figures[a].figures, method: 'low-rank', residual: outcome.residual };
+        });
+        group.forEach((g, j) => {
+          if (cases[g.index]) return;
+          const withTie = !tied && !block.cases[j].tRe ? this.solver.tiedUpdate(g.update) : undefined;
+          if (withTie) retry.push({ index: g.index, update: withTie });
+          else failed.push(g.index);
+        });
+      }
+      pending = retry;
+    }
+    for (const i of failed) {
+      const single = this.solver.solveFromBase(updates[i]!, rhsRe, rhsIm, this.x0, this.out);
+      cases[i] = single.ok ? { ...heads[i], ...this.watch.fromUnknowns(this.out), method: 'low-rank', residual: single.residual } : this.fullSolve(heads[i], batch[i], model);
+    }
+    return cases as BreakCase[];
+  }
+
+  /** The figures of one case (exposed for checks: `watch.lastVolts()` then holds its load voltages). */
+  solveCase(w: Work, model: StudyLoadModel): BreakCase {
+    if (model === 'constant-impedance') return this.solveConstantImpedance([w])[0];
+    const layout = this.network.runs[w.run];
+    const head = this.head(w, model);
     const u = this.solver.update(layout, w.conductor);
-    if (!u) {
-      // The conductor carries nothing the matrix sees (both ends one node): the base case stands.
-      const figures = model === 'sheet' ? this.watch.fromPins(this.solution.volts) : this.watch.fromUnknowns(this.x0);
-      return { ...head, ...figures, method: 'low-rank', residual: 0 };
-    }
+    if (!u) return this.baseStands(head, model);
     const { system, classes } = this.solution;
-    if (model === 'constant-impedance') {
-      const r = this.solver.solveFromBase(u, system.rhsRe, system.rhsIm, this.x0, this.out);
-      if (r.ok) return { ...head, ...this.watch.fromUnknowns(this.out), method: 'low-rank', residual: r.residual };
-      return this.fullSolve(head, w, model);
-    }
     const prepared = this.solver.linearSolver(u);
     if (!prepared) return this.fullSolve(head, w, model);
     const linear = prepared.solver;
@@ -204,7 +265,7 @@ export class BreakSweeper implements SlicedStudy<BreakSweepResult> {
   }
 
   /** The case built and solved afresh (the opening changed which parts are live or referenced). */
-  private fullSolve(head: Omit<BreakCase, keyof CaseFigures | 'method' | 'residual'>, w: Work, model: StudyLoadModel): BreakCase {
+  private fullSolve(head: CaseHead, w: Work, model: StudyLoadModel): BreakCase {
     const mods = openingMods(this.network.runs[w.run].runId, head.conductor);
     const network = buildNetwork(this.sheet, mods);
     if (network.pins.length !== this.network.pins.length) {
@@ -247,4 +308,22 @@ export function breakSweepSync(sheet: Sheet, options: BreakSweepOptions = {}): S
 /** The sweep in slices, yielding to the event loop between them (for a UI thread); same result as breakSweepSync. */
 export function breakSweep(sheet: Sheet, options: BreakSweepOptions = {}): Promise<StudyOutcome<BreakSweepResult>> {
   return runAsync('break sweep', () => BreakSweeper.prepare(sheet, options), options);
+}
+
+/** Consecutive groups whose columns fit one block (each item fits one alone). */
+function blocks<T extends { update: OpeningUpdate }>(items: readonly T[]): T[][] {
+  const groups: T[][] = [];
+  let group: T[] = [];
+  let width = 0;
+  for (const item of items) {
+    if (group.length > 0 && width + item.update.m > BLOCK_COLUMNS) {
+      groups.push(group);
+      group = [];
+      width = 0;
+    }
+    group.push(item);
+    width += item.update.m;
+  }
+  if (group.length > 0) groups.push(group);
+  return groups;
 }

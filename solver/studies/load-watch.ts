@@ -9,6 +9,7 @@ import type { AssembledSystem } from '../solve/assemble';
 import type { PinVoltages } from '../solve/load-iteration';
 import { judge, snapNominal } from '../results/standing';
 import type { BreakCase, LoadExcursion } from './study-types';
+import type { OpeningBlock } from './opening-solver';
 
 /** Below this share of nominal a load has lost its supply rather than seeing an abnormal voltage. */
 export const WITHOUT_VOLTAGE_FRACTION = 0.05;
@@ -20,16 +21,18 @@ export class LoadWatch {
   private readonly part: Int32Array;
   private readonly pClass: Int32Array;
   private readonly qClass: Int32Array;
-  private readonly pScale: Float64Array;
-  private readonly qScale: Float64Array;
-  private readonly offRe: Float64Array;
-  private readonly offIm: Float64Array;
-  private readonly nominal: Float64Array;
-  private readonly normalLo: Float64Array;
-  private readonly normalHi: Float64Array;
-  private readonly tolerableLo: Float64Array;
-  private readonly tolerableHi: Float64Array;
-  private readonly volts: Float64Array;
+  readonly pScale: Float64Array;
+  readonly qScale: Float64Array;
+  readonly offRe: Float64Array;
+  readonly offIm: Float64Array;
+  readonly nominal: Float64Array;
+  readonly normalLo: Float64Array;
+  readonly normalHi: Float64Array;
+  readonly tolerableLo: Float64Array;
+  readonly tolerableHi: Float64Array;
+  readonly volts: Float64Array;
+  /** The watched elements by pivot step of their p class, for reading a block (built on first use). */
+  private byStep?: StepOrder;
 
   constructor(
     private readonly sheet: Sheet,
@@ -97,6 +100,58 @@ export class LoadWatch {
     return this.figures();
   }
 
+  /**
+   * The figures of the openings `cases` of a block, each with the largest |x| met (for the residual check), in one
+   * pass over the loads: an element's data is read once for every case, and the block's rows come in order.
+   * `watch.lastVolts()` afterwards holds the last listed case's voltages.
+   */
+  fromBlock(block: OpeningBlock, cases: readonly number[]): { figures: CaseFigures; xMax: number }[] {
+    const order = this.stepOrder(block.place);
+    const count = cases.length;
+    // t by block column (zero for the columns of cases not asked for), and each case's columns.
+    const tRe = new Float64Array(block.width);
+    const tIm = new Float64Array(block.width);
+    const first = new Int32Array(count);
+    const end = new Int32Array(count);
+    cases.forEach((i, c) => {
+      const k = block.cases[i];
+      if (!k.tRe || !k.tIm) throw new RangeError('a case without an answer has no figures');
+      first[c] = k.offset;
+      end[c] = k.offset + k.update.m;
+      tRe.set(k.tRe, k.offset);
+      tIm.set(k.tIm, k.offset);
+    });
+    const acc = new CaseAccumulators(count);
+    readBlock(this.data, order, block, tRe, tIm, first, end, acc);
+    return cases.map((_, c) => ({ figures: this.figuresOf(acc, c), xMax: Math.sqrt(acc.xMax[c]) }));
+  }
+
+  /** The arrays readBlock runs over (kept private to the watch otherwise). */
+  get data(): WatchData {
+    return this;
+  }
+
+  private stepOrder(place: Int32Array): StepOrder {
+    if (this.byStep && this.byStep.place === place) return this.byStep;
+    const stepOf = (c: number) => (c >= 0 ? place[c] : -1);
+    const element = Int32Array.from({ length: this.count }, (_, t) => t).sort((s, t) => stepOf(this.pClass[s]) - stepOf(this.pClass[t]));
+    this.byStep = {
+      place,
+      count: this.count,
+      element,
+      pStep: Int32Array.from(element, (t) => stepOf(this.pClass[t])),
+      qStep: Int32Array.from(element, (t) => stepOf(this.qClass[t])),
+    };
+    return this.byStep;
+  }
+
+  private figuresOf(acc: CaseAccumulators, c: number): CaseFigures {
+    const worstOver = acc.over[c] >= 0 ? this.excursion(acc.over[c], 'over', acc.overVolts[c]) : undefined;
+    const worstUnder = acc.under[c] >= 0 ? this.excursion(acc.under[c], 'under', acc.underVolts[c]) : undefined;
+    const severityPercent = Math.max(0, worstOver?.beyondPercent ?? 0, worstUnder?.beyondPercent ?? 0);
+    return { worstOver, worstUnder, loadsOutside: acc.outside[c], loadsTolerable: acc.tolerable[c], loadsWithoutVoltage: acc.without[c], severityPercent };
+  }
+
   /** Load element voltages from pin voltages (a load iteration's or a fresh solve's answer). */
   fromPins(v: PinVoltages): CaseFigures {
     for (let t = 0; t < this.count; t++) {
@@ -112,42 +167,13 @@ export class LoadWatch {
   }
 
   private figures(): CaseFigures {
-    let over = -1;
-    let under = -1;
-    let overBeyond = -Infinity;
-    let underBeyond = -Infinity;
-    let outside = 0;
-    let tolerable = 0;
-    let without = 0;
-    for (let t = 0; t < this.count; t++) {
-      const v = this.volts[t];
-      const nominal = this.nominal[t];
-      if (v < WITHOUT_VOLTAGE_FRACTION * nominal) {
-        without++;
-        continue;
-      }
-      if (v < this.tolerableLo[t] || v > this.tolerableHi[t]) outside++;
-      else if (v < this.normalLo[t] || v > this.normalHi[t]) tolerable++;
-      const above = (v - this.normalHi[t]) / nominal;
-      const below = (this.normalLo[t] - v) / nominal;
-      if (above > overBeyond) {
-        overBeyond = above;
-        over = t;
-      }
-      if (below > underBeyond) {
-        underBeyond = below;
-        under = t;
-      }
-    }
-    const worstOver = over >= 0 ? this.excursion(over, 'over') : undefined;
-    const worstUnder = under >= 0 ? this.excursion(under, 'under') : undefined;
-    const severityPercent = Math.max(0, worstOver?.beyondPercent ?? 0, worstUnder?.beyondPercent ?? 0);
-    return { worstOver, worstUnder, loadsOutside: outside, loadsTolerable: tolerable, loadsWithoutVoltage: without, severityPercent };
+    const acc = new CaseAccumulators(1);
+    for (let t = 0; t < this.count; t++) acc.add(0, t, this.volts[t], this.nominal[t], this.normalLo[t], this.normalHi[t], this.tolerableLo[t], this.tolerableHi[t]);
+    return this.figuresOf(acc, 0);
   }
 
-  private excursion(t: number, side: 'over' | 'under'): LoadExcursion {
+  private excursion(t: number, side: 'over' | 'under', v: number): LoadExcursion {
     const part = this.network.loads[this.part[t]];
-    const v = this.volts[t];
     const nominal = this.nominal[t];
     const beyondVolts = side === 'over' ? v - this.normalHi[t] : this.normalLo[t] - v;
     const standing = v < this.tolerableLo[t] || v > this.tolerableHi[t] ? 'outside' : v < this.normalLo[t] || v > this.normalHi[t] ? 'tolerable' : 'normal';
@@ -162,5 +188,154 @@ export class LoadWatch {
       beyondPercent: (100 * beyondVolts) / nominal,
       standing,
     };
+  }
+}
+
+interface StepOrder {
+  place: Int32Array;
+  count: number;
+  /** Watched element indices, by the pivot step of their p class. */
+  element: Int32Array;
+  pStep: Int32Array;
+  qStep: Int32Array;
+}
+
+/** The running figures of several cases at once: the worst over and under so far, and the counts. */
+class CaseAccumulators {
+  readonly over: Int32Array;
+  readonly under: Int32Array;
+  readonly overBeyond: Float64Array;
+  readonly underBeyond: Float64Array;
+  readonly overVolts: Float64Array;
+  readonly underVolts: Float64Array;
+  readonly outside: Int32Array;
+  readonly tolerable: Int32Array;
+  readonly without: Int32Array;
+  readonly xMax: Float64Array;
+
+  constructor(count: number) {
+    this.over = new Int32Array(count).fill(-1);
+    this.under = new Int32Array(count).fill(-1);
+    this.overBeyond = new Float64Array(count).fill(-Infinity);
+    this.underBeyond = new Float64Array(count).fill(-Infinity);
+    this.overVolts = new Float64Array(count);
+    this.underVolts = new Float64Array(count);
+    this.outside = new Int32Array(count);
+    this.tolerable = new Int32Array(count);
+    this.without = new Int32Array(count);
+    this.xMax = new Float64Array(count);
+  }
+
+  add(c: number, t: number, v: number, nominal: number, normalLo: number, normalHi: number, tolerableLo: number, tolerableHi: number): void {
+    if (v < WITHOUT_VOLTAGE_FRACTION * nominal) {
+      this.without[c]++;
+      return;
+    }
+    if (v < tolerableLo || v > tolerableHi) this.outside[c]++;
+    else if (v < normalLo || v > normalHi) this.tolerable[c]++;
+    const above = (v - normalHi) / nominal;
+    const below = (normalLo - v) / nominal;
+    if (above > this.overBeyond[c]) {
+      this.overBeyond[c] = above;
+      this.over[c] = t;
+      this.overVolts[c] = v;
+    }
+    if (below > this.underBeyond[c]) {
+      this.underBeyond[c] = below;
+      this.under[c] = t;
+      this.underVolts[c] = v;
+    }
+  }
+}
+
+type WatchData = Pick<LoadWatch, 'pScale' | 'qScale' | 'offRe' | 'offIm' | 'nominal' | 'normalLo' | 'normalHi' | 'tolerableLo' | 'tolerableHi' | 'volts'>;
+
+/**
+ * The loop of LoadWatch.fromBlock, on locals only: for each watched element, x at its two classes in every case
+ * of the block (x = x0 − W t, the case's columns), its voltage, and the running figures. The last case's
+ * voltages are left in `volts`.
+ */
+function readBlock(
+  w: WatchData,
+  order: StepOrder,
+  block: OpeningBlock,
+  tRe: Float64Array,
+  tIm: Float64Array,
+  first: Int32Array,
+  end: Int32Array,
+  acc: CaseAccumulators,
+): void {
+  const { re: wRe, im: wIm, width, x0Re, x0Im } = block;
+  const { pScale, qScale, offRe, offIm, nominal, normalLo, normalHi, tolerableLo, tolerableHi, volts } = w;
+  const { element, pStep, qStep } = order;
+  const { over, under, overBeyond, underBeyond, overVolts, underVolts, outside, tolerable, without, xMax } = acc;
+  const count = first.length;
+  const last = count - 1;
+  for (let e = 0; e < order.count; e++) {
+    const t = element[e];
+    const kp = pStep[e];
+    const kq = qStep[e];
+    const sp = pScale[t];
+    const sq = qScale[t];
+    const rowP = kp * width;
+    const rowQ = kq * width;
+    const x0pr = kp >= 0 ? x0Re[kp] : 0;
+    const x0pi = kp >= 0 ? x0Im[kp] : 0;
+    const x0qr = kq >= 0 ? x0Re[kq] : 0;
+    const x0qi = kq >= 0 ? x0Im[kq] : 0;
+    const nom = nominal[t];
+    const floor = WITHOUT_VOLTAGE_FRACTION * nom;
+    const lo = normalLo[t];
+    const hi = normalHi[t];
+    const tLo = tolerableLo[t];
+    const tHi = tolerableHi[t];
+    for (let c = 0; c < count; c++) {
+      let pr = x0pr;
+      let pi = x0pi;
+      let qr = x0qr;
+      let qi = x0qi;
+      for (let b = first[c]; b < end[c]; b++) {
+        const tr = tRe[b];
+        const ti = tIm[b];
+        if (kp >= 0) {
+          const ar = wRe[rowP + b];
+          const ai = wIm[rowP + b];
+          pr -= ar * tr - ai * ti;
+          pi -= ar * ti + ai * tr;
+        }
+        if (kq >= 0) {
+          const ar = wRe[rowQ + b];
+          const ai = wIm[rowQ + b];
+          qr -= ar * tr - ai * ti;
+          qi -= ar * ti + ai * tr;
+        }
+      }
+      const xp = pr * pr + pi * pi;
+      const xq = qr * qr + qi * qi;
+      const xm = xp > xq ? xp : xq;
+      if (xm > xMax[c]) xMax[c] = xm;
+      const re = offRe[t] + sp * pr - sq * qr;
+      const im = offIm[t] + sp * pi - sq * qi;
+      const v = Math.sqrt(re * re + im * im);
+      if (c === last) volts[t] = v;
+      if (v < floor) {
+        without[c]++;
+        continue;
+      }
+      if (v < tLo || v > tHi) outside[c]++;
+      else if (v < lo || v > hi) tolerable[c]++;
+      const above = (v - hi) / nom;
+      const below = (lo - v) / nom;
+      if (above > overBeyond[c]) {
+        overBeyond[c] = above;
+        over[c] = t;
+        overVolts[c] = v;
+      }
+      if (below > underBeyond[c]) {
+        underBeyond[c] = below;
+        under[c] = t;
+        underVolts[c] = v;
+      }
+    }
   }
 }

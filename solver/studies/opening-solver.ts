@@ -13,6 +13,8 @@ import { analyse } from '../sparse/symbolic';
 import { factor, type NumericLu } from '../sparse/lu';
 import { cachedRowAbsSums, maxOf, multiplyInto } from '../sparse/residual';
 import { lowerSolveInPlace, permuteColumns, permuteRows, upperSolveInPlace } from '../sparse/solve';
+import { lowerSolveBlockInPlace, upperSolveBlockInPlace } from '../sparse/block-solve';
+import { ResidualProbes } from './residual-probes';
 import { denseComplexSolveInPlace } from '../sparse/dense-complex';
 import type { PinClasses } from '../solve/classes';
 import type { AssembledSystem } from '../solve/assemble';
@@ -21,6 +23,8 @@ import type { AssembledSystem } from '../solve/assemble';
 export const OPENING_RESIDUAL_TOLERANCE = 1e-10;
 /** Below this share of its terms a pivot of K has lost too many digits (as solveWithBlockUpdate). */
 const PIVOT_FLOOR = 1e-8;
+/** Columns of W solved together in one pass over the factors (the gain levels off beyond about 16). */
+export const BLOCK_COLUMNS = 16;
 
 /** The update of one opening: m columns of U and the m×m D, row-major. */
 export interface OpeningUpdate {
@@ -34,6 +38,8 @@ export interface OpeningUpdate {
   /** Offsets of the ends, V_f − V_t of the known parts. */
   wRe: Float64Array;
   wIm: Float64Array;
+  /** Set when the last column is a tie holding this class at the reference (see withTie). */
+  tieClass?: number;
 }
 
 interface Capacitance {
@@ -43,6 +49,51 @@ interface Capacitance {
 }
 
 export type OpeningOutcome = { ok: true; residual: number } | { ok: false; reason: 'singular' | 'residual'; residual?: number };
+
+/** One opening in a block: x = x0 − W[:, offset .. offset+m) t. */
+export interface BlockCase {
+  update: OpeningUpdate;
+  offset: number;
+  /** Absent when K is singular (the opening cuts a part off). */
+  tRe?: Float64Array;
+  tIm?: Float64Array;
+  /** The class a tie holds (the update's last column), or −1. */
+  tieClass: number;
+}
+
+/** Openings solved together: W interleaved by pivot step (step k of column b at k·width + b), x0 by step. */
+export interface OpeningBlock {
+  width: number;
+  re: Float64Array;
+  im: Float64Array;
+  /** Class → pivot step. */
+  place: Int32Array;
+  x0Re: Float64Array;
+  x0Im: Float64Array;
+  cases: BlockCase[];
+  /** Per probe, g·W of each column (see residual-probes.ts). */
+  dots: ComplexVector[];
+}
+
+/** W[c, column] (zero for the reference, c = −1). */
+function blockValueOfColumn(block: OpeningBlock, c: number, column: number): { re: number; im: number } {
+  if (c < 0) return { re: 0, im: 0 };
+  const p = block.place[c] * block.width + column;
+  return { re: block.re[p], im: block.im[p] };
+}
+
+/** x[c] of one opening of a block (zero for the reference). */
+export function blockValue(block: OpeningBlock, c: BlockCase, cls: number): { re: number; im: number } {
+  if (cls < 0 || !c.tRe || !c.tIm) return { re: 0, im: 0 };
+  const k = block.place[cls];
+  let re = block.x0Re[k];
+  let im = block.x0Im[k];
+  for (let b = 0, p = k * block.width + c.offset; b < c.update.m; b++, p++) {
+    re -= block.re[p] * c.tRe[b] - block.im[p] * c.tIm[b];
+    im -= block.re[p] * c.tIm[b] + block.im[p] * c.tRe[b];
+  }
+  return { re, im };
+}
 
 /** Holds the base factors and scratch space for every opening of a sweep: no allocation per case beyond tiny arrays. */
 export class OpeningSolver {
@@ -62,6 +113,8 @@ export class OpeningSolver {
   /** The base matrix without its explicit zeros, and its own factors (sparser: see the constructor). */
   readonly matrix: ComplexCsc;
   private readonly lu: NumericLu;
+  private readonly blockRe: Float64Array;
+  private readonly blockIm: Float64Array;
 
   constructor(
     readonly network: BuiltNetwork,
@@ -80,6 +133,8 @@ export class OpeningSolver {
     this.wIm = arrays();
     [this.tmpRe, this.tmpIm, this.unitRe, this.unitIm, this.rRe, this.rIm, this.bRe, this.bIm] = Array.from({ length: 8 }, () => new Float64Array(this.n));
     this.aNorm = maxOf(cachedRowAbsSums(this.matrix));
+    this.blockRe = new Float64Array(this.n * BLOCK_COLUMNS);
+    this.blockIm = new Float64Array(this.n * BLOCK_COLUMNS);
   }
 
   /** The update that opens conductor `index` of a run, or undefined when it is open already or changes nothing. */
@@ -202,29 +257,7 @@ export class OpeningSolver {
         gIm[a * m + b] = g.im;
       }
     }
-    const kRe = new Float64Array(m * m);
-    const kIm = new Float64Array(m * m);
-    let termScale = 1;
-    for (let a = 0; a < m; a++) {
-      for (let b = 0; b < m; b++) {
-        let sr = a === b ? 1 : 0;
-        let si = 0;
-        let terms = a === b ? 1 : 0;
-        for (let c = 0; c < m; c++) {
-          const dr = u.dRe[a * m + c];
-          const di = u.dIm[a * m + c];
-          const gr = gRe[c * m + b];
-          const gi = gIm[c * m + b];
-          sr += dr * gr - di * gi;
-          si += dr * gi + di * gr;
-          terms += Math.hypot(dr, di) * Math.hypot(gr, gi);
-        }
-        if (terms > termScale) termScale = terms;
-        kRe[a * m + b] = sr;
-        kIm[a * m + b] = si;
-      }
-    }
-    return { kRe, kIm, termScale };
+    return capacitanceOf(u, gRe, gIm);
   }
 
   /** z = K⁻¹ D Uᵀ y, or undefined when K is singular to working precision. */
@@ -364,6 +397,7 @@ export class OpeningSolver {
       dIm,
       wRe: grow(u.wRe, 0),
       wIm: grow(u.wIm, 0),
+      tieClass: c,
     };
   }
 
@@ -418,6 +452,147 @@ export class OpeningSolver {
         out.im[i] -= gRe[i] * ti + gIm[i] * tr;
       }
     }
+  }
+
+  /**
+   * Openings answered together against the base right-hand side b (base answer x0 = A⁻¹ b): their columns of W
+   * solved as one block (at most BLOCK_COLUMNS columns in all), and for each its t of x = x0 − W t, with
+   * t = D w + K⁻¹ D (Uᵀx0 − G D w), G = UᵀW. No n-vector is formed per opening: the reader takes x where it needs
+   * it (see blockValue and LoadWatch.fromBlock), then verify() checks the answer by its probed residual. An
+   * opening whose K is singular (a part cut off) gets no t: tiedUpdate() gives the update that holds the part.
+   */
+  solveBlock(updates: readonly OpeningUpdate[], bRe: Float64Array, bIm: Float64Array, x0: ComplexVector): OpeningBlock {
+    const base = this.baseFor(bRe, bIm, x0);
+    const width = updates.reduce((w, u) => w + u.m, 0);
+    if (width > BLOCK_COLUMNS) throw new RangeError(`a block holds at most ${BLOCK_COLUMNS} columns, not ${width}`);
+    const { lu, blockRe, blockIm } = this;
+    blockRe.fill(0, 0, this.n * width);
+    blockIm.fill(0, 0, this.n * width);
+    let column = 0;
+    let firstRow = this.n;
+    for (const u of updates) {
+      for (let a = 0; a < u.m; a++, column++) {
+        if (u.fromClass[a] >= 0) {
+          const row = lu.rowPivot[u.fromClass[a]];
+          blockRe[row * width + column] += u.fromScale[a];
+          firstRow = Math.min(firstRow, row);
+        }
+        if (u.toClass[a] >= 0) {
+          const row = lu.rowPivot[u.toClass[a]];
+          blockRe[row * width + column] -= u.toScale[a];
+          firstRow = Math.min(firstRow, row);
+        }
+      }
+    }
+    lowerSolveBlockInPlace(lu, blockRe, blockIm, width, firstRow);
+    upperSolveBlockInPlace(lu, blockRe, blockIm, width);
+    const block: OpeningBlock = {
+      width,
+      re: blockRe,
+      im: blockIm,
+      place: lu.colOrderInverse,
+      x0Re: base.x0Re,
+      x0Im: base.x0Im,
+      cases: [],
+      dots: base.probes.blockDots(blockRe, blockIm, width),
+    };
+    let offset = 0;
+    for (const u of updates) {
+      block.cases.push(this.blockCase(block, u, offset));
+      offset += u.m;
+    }
+    return block;
+  }
+
+  /** One opening's t from its columns of the block, or none when K is singular. */
+  private blockCase(block: OpeningBlock, u: OpeningUpdate, offset: number): BlockCase {
+    const m = u.m;
+    const gRe = new Float64Array(m * m);
+    const gIm = new Float64Array(m * m);
+    for (let a = 0; a < m; a++) {
+      for (let b = 0; b < m; b++) {
+        const from = blockValueOfColumn(block, u.fromClass[a], offset + b);
+        const to = blockValueOfColumn(block, u.toClass[a], offset + b);
+        gRe[a * m + b] = u.fromScale[a] * from.re - u.toScale[a] * to.re;
+        gIm[a * m + b] = u.fromScale[a] * from.im - u.toScale[a] * to.im;
+      }
+    }
+    const k = capacitanceOf(u, gRe, gIm);
+    const t0 = OpeningSolver.dTimes(u, u.wRe, u.wIm);
+    const y = OpeningSolver.projectAll(u, this.baseX0!.re, this.baseX0!.im);
+    for (let a = 0; a < m; a++) {
+      for (let b = 0; b < m; b++) {
+        const gr = gRe[a * m + b];
+        const gi = gIm[a * m + b];
+        y.re[a] -= gr * t0.re[b] - gi * t0.im[b];
+        y.im[a] -= gr * t0.im[b] + gi * t0.re[b];
+      }
+    }
+    const z = OpeningSolver.dTimes(u, y.re, y.im);
+    const tieClass = u.tieClass ?? -1;
+    if (!denseComplexSolveInPlace(m, k.kRe, k.kIm, z.re, z.im, PIVOT_FLOOR * k.termScale)) return { update: u, offset, tieClass };
+    for (let b = 0; b < m; b++) {
+      z.re[b] += t0.re[b];
+      z.im[b] += t0.im[b];
+    }
+    return { update: u, offset, tRe: z.re, tIm: z.im, tieClass };
+  }
+
+  /**
+   * The check of a block answer: a tie must carry nothing, and the probed residual of the opened system must be
+   * within tolerance. `xMax` is the largest |x| its reader met (it reads nearly every unknown; one it missed can only
+   * make the check stricter).
+   */
+  verify(block: OpeningBlock, index: number, xMax: number): OpeningOutcome {
+    const c = block.cases[index];
+    if (!c.tRe || !c.tIm) return { ok: false, reason: 'singular' };
+    const u = c.update;
+    const m = u.m;
+    if (c.tieClass >= 0) {
+      const at = blockValue(block, c, c.tieClass);
+      if (Math.hypot(at.re, at.im) > 1e-9 * xMax) return { ok: false, reason: 'singular' };
+    }
+    // z·r = g·x + (Uᵀz)·D (Uᵀx + w) − z·b, with g·x = g·x0 − Σ t_b g·W_b.
+    const ux = { re: new Float64Array(m), im: new Float64Array(m) };
+    for (let a = 0; a < m; a++) {
+      const from = blockValue(block, c, u.fromClass[a]);
+      const to = blockValue(block, c, u.toClass[a]);
+      ux.re[a] = u.fromScale[a] * from.re - u.toScale[a] * to.re + u.wRe[a];
+      ux.im[a] = u.fromScale[a] * from.im - u.toScale[a] * to.im + u.wIm[a];
+    }
+    const v = OpeningSolver.dTimes(u, ux.re, ux.im);
+    const residual = this.baseProbes!.relativeResidual(block.dots, c.offset, m, c.tRe, c.tIm, xMax, this.aNorm, (zv) => {
+      let re = 0;
+      let im = 0;
+      for (let a = 0; a < m; a++) {
+        const zu = (u.fromClass[a] >= 0 ? u.fromScale[a] * zv[u.fromClass[a]] : 0) - (u.toClass[a] >= 0 ? u.toScale[a] * zv[u.toClass[a]] : 0);
+        re += zu * v.re[a];
+        im += zu * v.im[a];
+      }
+      return { re, im };
+    });
+    return residual <= OPENING_RESIDUAL_TOLERANCE ? { ok: true, residual } : { ok: false, reason: 'residual', residual };
+  }
+
+  /** The update plus a tie that holds the part an opening cuts off (at the conductor's far end, else its near end). */
+  tiedUpdate(u: OpeningUpdate): OpeningUpdate | undefined {
+    const c = u.toClass[0] >= 0 ? u.toClass[0] : u.fromClass[0];
+    return c >= 0 ? this.withTie(u, c) : undefined;
+  }
+
+  private baseX0?: ComplexVector;
+  private baseProbes?: ResidualProbes;
+  private baseStep?: { x0Re: Float64Array; x0Im: Float64Array };
+
+  /** x0 in pivot order and the probes, kept while the same base is asked for. */
+  private baseFor(bRe: Float64Array, bIm: Float64Array, x0: ComplexVector): { x0Re: Float64Array; x0Im: Float64Array; probes: ResidualProbes } {
+    if (!this.baseProbes || !this.baseStep || !this.baseProbes.isFor(bRe, bIm, x0)) {
+      const order = this.lu.colOrder;
+      this.baseX0 = x0;
+      this.baseProbes = new ResidualProbes(this.matrix, order, bRe, bIm, x0);
+      this.baseStep = { x0Re: Float64Array.from(order, (c) => x0.re[c]), x0Im: Float64Array.from(order, (c) => x0.im[c]) };
+    }
+    return { ...this.baseStep, probes: this.baseProbes };
   }
 
   /**
@@ -481,4 +656,32 @@ export function withoutExplicitZeros(a: ComplexCsc): ComplexCsc {
     }
   }
   return { n, colPtr, rowIdx, re, im };
+}
+
+/** K = I + D G for G = UᵀW (m×m row-major), with the scale of its terms for the pivot floor. */
+function capacitanceOf(u: OpeningUpdate, gRe: Float64Array, gIm: Float64Array): Capacitance {
+  const m = u.m;
+  const kRe = new Float64Array(m * m);
+  const kIm = new Float64Array(m * m);
+  let termScale = 1;
+  for (let a = 0; a < m; a++) {
+    for (let b = 0; b < m; b++) {
+      let sr = a === b ? 1 : 0;
+      let si = 0;
+      let terms = a === b ? 1 : 0;
+      for (let c = 0; c < m; c++) {
+        const dr = u.dRe[a * m + c];
+        const di = u.dIm[a * m + c];
+        const gr = gRe[c * m + b];
+        const gi = gIm[c * m + b];
+        sr += dr * gr - di * gi;
+        si += dr * gi + di * gr;
+        terms += Math.hypot(dr, di) * Math.hypot(gr, gi);
+      }
+      if (terms > termScale) termScale = terms;
+      kRe[a * m + b] = sr;
+      kIm[a * m + b] = si;
+    }
+  }
+  return { kRe, kIm, termScale };
 }

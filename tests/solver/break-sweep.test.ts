@@ -82,6 +82,37 @@ describe('break sweep against a full re-solve with the conductor removed', () =>
   });
 });
 
+describe('break sweep in blocks of openings', () => {
+  it('every case of a whole sweep, solved 16 to a block with ties for cut-off parts, matches a fresh solve at its worst loads', () => {
+    // source: the independent check is a fresh build and factorization of each opened sheet (no base reused)
+    const sheet = buildingSheet(16, 7);
+    const r = breakSweepSync(sheet, { refineWorst: 0 });
+    if (!r.ok) throw new Error(r.error.message);
+    const network = buildNetwork(sheet, openingMods('', 'N'));
+    expect(r.value.cases.length).toBe(15 * 5);
+    for (const c of r.value.cases) {
+      expect(c.method, `${c.runId} ${c.conductor}`).toBe('low-rank');
+      expect(c.residual!).toBeLessThan(1e-10);
+      const fresh = freshLoadVolts(sheet, c.runId, c.conductor, 'constant-impedance');
+      for (const worst of [c.worstOver, c.worstUnder]) {
+        if (!worst) continue;
+        const part = network.loads.findIndex((p) => p.loadId === worst.loadId && p.label === worst.element);
+        expect(Math.abs(worst.volts - fresh[part]) / fresh[part], `${c.runId} ${c.conductor} ${worst.loadId}`).toBeLessThan(1e-8);
+      }
+    }
+    // the same figures as one case at a time
+    const prepared = BreakSweeper.prepare(sheet, { refineWorst: 0 });
+    if (!prepared.ok) throw new Error(prepared.error.message);
+    for (const c of r.value.cases.slice(0, 20)) {
+      const run = network.runs.findIndex((k) => k.runId === c.runId);
+      const conductor = network.runs[run].conductors.findIndex((k) => k.conductor === c.conductor);
+      const one = prepared.value.solveCase({ run, conductor }, 'constant-impedance');
+      expect(one.severityPercent).toBeCloseTo(c.severityPercent, 9);
+      expect([one.loadsOutside, one.loadsTolerable, one.loadsWithoutVoltage]).toEqual([c.loadsOutside, c.loadsTolerable, c.loadsWithoutVoltage]);
+    }
+  });
+});
+
 describe('break sweep against mathjs dense lusolve', () => {
   it('the small building, the apartment feeder neutral open: the assembled opened system solved densely', () => {
     // source: mathjs lusolve, an independent dense LU, on the opened network's own assembled matrix
@@ -196,6 +227,7 @@ describe('break sweep: ranking, progress and cancellation', () => {
     const controller = new AbortController();
     const seen: number[] = [];
     let ticks = 0;
+    let doneAtAbort = -1;
     const timer = setInterval(() => ticks++, 0);
     const r = await breakSweep(sheet, {
       sliceMs: 0,
@@ -203,14 +235,19 @@ describe('break sweep: ranking, progress and cancellation', () => {
       onProgress: ({ done, total }) => {
         seen.push(done);
         expect(total).toBe(29 * 5 + 10);
-        if (done >= 20) controller.abort();
+        if (done >= 20 && doneAtAbort < 0) {
+          doneAtAbort = done;
+          controller.abort();
+        }
       },
     });
     clearInterval(timer);
     if (!r.ok) throw new Error(r.error.message);
     expect(r.value.cancelled).toBe(true);
-    expect(r.value.cases.length).toBe(20);
-    expect(seen.slice(0, 3)).toEqual([1, 2, 3]);
+    // A slice is at least one step, a block of 16 cases: progress after each, and nothing after the abort.
+    expect(seen.slice(0, 2)).toEqual([16, 32]);
+    expect(r.value.cases.length).toBe(doneAtAbort);
+    expect(doneAtAbort).toBeLessThan(29 * 5);
     expect(ticks).toBeGreaterThan(0); // the event loop ran between slices
   });
 
