@@ -133,7 +133,8 @@ export class LoadWatch {
 
   private stepOrder(place: Int32Array): StepOrder {
     if (this.byStep && this.byStep.place === place) return this.byStep;
-    const stepOf = (c: number) => (c >= 0 ? place[c] : -1);
+    // The reference (class −1) reads the block's zero row n.
+    const stepOf = (c: number) => (c >= 0 ? place[c] : place.length);
     const element = Int32Array.from({ length: this.count }, (_, t) => t).sort((s, t) => stepOf(this.pClass[s]) - stepOf(this.pClass[t]));
     this.byStep = {
       place,
@@ -279,10 +280,10 @@ function readBlock(
     const sq = qScale[t];
     const rowP = kp * width;
     const rowQ = kq * width;
-    const x0pr = kp >= 0 ? x0Re[kp] : 0;
-    const x0pi = kp >= 0 ? x0Im[kp] : 0;
-    const x0qr = kq >= 0 ? x0Re[kq] : 0;
-    const x0qi = kq >= 0 ? x0Im[kq] : 0;
+    const x0pr = x0Re[kp];
+    const x0pi = x0Im[kp];
+    const x0qr = x0Re[kq];
+    const x0qi = x0Im[kq];
     const nom = nominal[t];
     const floor = WITHOUT_VOLTAGE_FRACTION * nom;
     const lo = normalLo[t];
@@ -294,21 +295,17 @@ function readBlock(
       let pi = x0pi;
       let qr = x0qr;
       let qi = x0qi;
-      for (let b = first[c]; b < end[c]; b++) {
+      for (let b = first[c], stop = end[c]; b < stop; b++) {
         const tr = tRe[b];
         const ti = tIm[b];
-        if (kp >= 0) {
-          const ar = wRe[rowP + b];
-          const ai = wIm[rowP + b];
-          pr -= ar * tr - ai * ti;
-          pi -= ar * ti + ai * tr;
-        }
-        if (kq >= 0) {
-          const ar = wRe[rowQ + b];
-          const ai = wIm[rowQ + b];
-          qr -= ar * tr - ai * ti;
-          qi -= ar * ti + ai * tr;
-        }
+        const apr = wRe[rowP + b];
+        const api = wIm[rowP + b];
+        const aqr = wRe[rowQ + b];
+        const aqi = wIm[rowQ + b];
+        pr -= apr * tr - api * ti;
+        pi -= apr * ti + api * tr;
+        qr -= aqr * tr - aqi * ti;
+        qi -= aqr * ti + aqi * tr;
       }
       const xp = pr * pr + pi * pi;
       const xq = qr * qr + qi * qi;

@@ -61,7 +61,10 @@ export interface BlockCase {
   tieClass: number;
 }
 
-/** Openings solved together: W interleaved by pivot step (step k of column b at k·width + b), x0 by step. */
+/**
+ * Openings solved together: W interleaved by pivot step (step k of column b at k·width + b), x0 by step; both
+ * have a last row n, zero, for the reference.
+ */
 export interface OpeningBlock {
   width: number;
   re: Float64Array;
@@ -133,8 +136,9 @@ export class OpeningSolver {
     this.wIm = arrays();
     [this.tmpRe, this.tmpIm, this.unitRe, this.unitIm, this.rRe, this.rIm, this.bRe, this.bIm] = Array.from({ length: 8 }, () => new Float64Array(this.n));
     this.aNorm = maxOf(cachedRowAbsSums(this.matrix));
-    this.blockRe = new Float64Array(this.n * BLOCK_COLUMNS);
-    this.blockIm = new Float64Array(this.n * BLOCK_COLUMNS);
+    // One more row than unknowns: the reference's, always zero, so that a reader needs no test for it.
+    this.blockRe = new Float64Array((this.n + 1) * BLOCK_COLUMNS);
+    this.blockIm = new Float64Array((this.n + 1) * BLOCK_COLUMNS);
   }
 
   /** The update that opens conductor `index` of a run, or undefined when it is open already or changes nothing. */
@@ -466,8 +470,8 @@ export class OpeningSolver {
     const width = updates.reduce((w, u) => w + u.m, 0);
     if (width > BLOCK_COLUMNS) throw new RangeError(`a block holds at most ${BLOCK_COLUMNS} columns, not ${width}`);
     const { lu, blockRe, blockIm } = this;
-    blockRe.fill(0, 0, this.n * width);
-    blockIm.fill(0, 0, this.n * width);
+    blockRe.fill(0, 0, (this.n + 1) * width);
+    blockIm.fill(0, 0, (this.n + 1) * width);
     let column = 0;
     let firstRow = this.n;
     for (const u of updates) {
@@ -590,7 +594,14 @@ export class OpeningSolver {
       const order = this.lu.colOrder;
       this.baseX0 = x0;
       this.baseProbes = new ResidualProbes(this.matrix, order, bRe, bIm, x0);
-      this.baseStep = { x0Re: Float64Array.from(order, (c) => x0.re[c]), x0Im: Float64Array.from(order, (c) => x0.im[c]) };
+      // By pivot step, with the reference's zero as entry n (see the block's extra row).
+      const x0Re = new Float64Array(this.n + 1);
+      const x0Im = new Float64Array(this.n + 1);
+      order.forEach((c, k) => {
+        x0Re[k] = x0.re[c];
+        x0Im[k] = x0.im[c];
+      });
+      this.baseStep = { x0Re, x0Im };
     }
     return { ...this.baseStep, probes: this.baseProbes };
   }
