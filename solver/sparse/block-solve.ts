@@ -34,9 +34,25 @@ export function lowerSolveBlockInPlace(lu: NumericLu, yRe: Float64Array, yIm: Fl
   }
 }
 
-/** Y ← U⁻¹ Y for an interleaved block of `width` columns (column by column of U from the last). */
-export function upperSolveBlockInPlace(lu: NumericLu, yRe: Float64Array, yIm: Float64Array, width: number): void {
+/** Weights by pivot step, and per column the sum Σ_k w_k y_k that the back substitution forms as it goes. */
+export interface StepWeights {
+  re: Float64Array;
+  im: Float64Array;
+  sumRe: Float64Array;
+  sumIm: Float64Array;
+}
+
+/**
+ * Y ← U⁻¹ Y for an interleaved block of `width` columns (column by column of U from the last). Each weighting
+ * given gets Σ_k w_k y_k per column, taken while row k is fresh from its division (a later pass over the block
+ * would read it all again).
+ */
+export function upperSolveBlockInPlace(lu: NumericLu, yRe: Float64Array, yIm: Float64Array, width: number, weights: readonly StepWeights[] = []): void {
   const { n, uColPtr, uRowIdx, uRe, uIm, uDiagRe, uDiagIm } = lu;
+  for (const w of weights) {
+    w.sumRe.fill(0, 0, width);
+    w.sumIm.fill(0, 0, width);
+  }
   for (let k = n - 1; k >= 0; k--) {
     const dr = uDiagRe[k];
     const di = uDiagIm[k];
@@ -49,6 +65,17 @@ export function upperSolveBlockInPlace(lu: NumericLu, yRe: Float64Array, yIm: Fl
       const yi = yIm[kb + b];
       yRe[kb + b] = yr * ir - yi * ii;
       yIm[kb + b] = yr * ii + yi * ir;
+    }
+    for (const w of weights) {
+      const wr = w.re[k];
+      const wi = w.im[k];
+      const { sumRe, sumIm } = w;
+      for (let b = 0; b < width; b++) {
+        const vr = yRe[kb + b];
+        const vi = yIm[kb + b];
+        sumRe[b] += wr * vr - wi * vi;
+        sumIm[b] += wr * vi + wi * vr;
+      }
     }
     for (let p = uColPtr[k], end = uColPtr[k + 1]; p < end; p++) {
       const rb = uRowIdx[p] * width;

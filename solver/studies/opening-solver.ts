@@ -13,8 +13,8 @@ import { analyse } from '../sparse/symbolic';
 import { factor, type NumericLu } from '../sparse/lu';
 import { cachedRowAbsSums, maxOf, multiplyInto } from '../sparse/residual';
 import { lowerSolveInPlace, permuteColumns, permuteRows, upperSolveInPlace } from '../sparse/solve';
-import { lowerSolveBlockInPlace, upperSolveBlockInPlace } from '../sparse/block-solve';
-import { ResidualProbes } from './residual-probes';
+import { lowerSolveBlockInPlace, upperSolveBlockInPlace, type StepWeights } from '../sparse/block-solve';
+import { BLOCK_WIDTH, ResidualProbes } from './residual-probes';
 import { denseComplexSolveInPlace } from '../sparse/dense-complex';
 import type { PinClasses } from '../solve/classes';
 import type { AssembledSystem } from '../solve/assemble';
@@ -24,7 +24,7 @@ export const OPENING_RESIDUAL_TOLERANCE = 1e-10;
 /** Below this share of its terms a pivot of K has lost too many digits (as solveWithBlockUpdate). */
 const PIVOT_FLOOR = 1e-8;
 /** Columns of W solved together in one pass over the factors (the gain levels off beyond about 16). */
-export const BLOCK_COLUMNS = 16;
+export const BLOCK_COLUMNS = BLOCK_WIDTH;
 
 /** The update of one opening: m columns of U and the m×m D, row-major. */
 export interface OpeningUpdate {
@@ -74,8 +74,8 @@ export interface OpeningBlock {
   x0Re: Float64Array;
   x0Im: Float64Array;
   cases: BlockCase[];
-  /** Per probe, g·W of each column (see residual-probes.ts). */
-  dots: ComplexVector[];
+  /** Per probe, g·W of each column (see residual-probes.ts), valid until the next block is solved. */
+  dots: readonly StepWeights[];
 }
 
 /** W[c, column] (zero for the reference, c = −1). */
@@ -489,7 +489,8 @@ export class OpeningSolver {
       }
     }
     lowerSolveBlockInPlace(lu, blockRe, blockIm, width, firstRow);
-    upperSolveBlockInPlace(lu, blockRe, blockIm, width);
+    const dots = base.probes.weights();
+    upperSolveBlockInPlace(lu, blockRe, blockIm, width, dots);
     const block: OpeningBlock = {
       width,
       re: blockRe,
@@ -498,7 +499,7 @@ export class OpeningSolver {
       x0Re: base.x0Re,
       x0Im: base.x0Im,
       cases: [],
-      dots: base.probes.blockDots(blockRe, blockIm, width),
+      dots,
     };
     let offset = 0;
     for (const u of updates) {

@@ -6,6 +6,10 @@
 // repeatable. A sweep of thousands of openings then pays a pass over its block of columns where a product with A
 // per opening cost as much as the solve itself.
 import type { ComplexCsc, ComplexVector } from '../linear-system';
+import type { StepWeights } from '../sparse/block-solve';
+
+/** The widest block the sums are kept for (the opening solver's BLOCK_COLUMNS). */
+export const BLOCK_WIDTH = 16;
 
 const SEED = 0x5eed_2026;
 
@@ -25,6 +29,7 @@ export type ProbeTerm = (z: Float64Array) => { re: number; im: number };
 
 export class ResidualProbes {
   private readonly probes: [Probe, Probe];
+  private readonly weightings: StepWeights[];
   private readonly bMax: number;
 
   constructor(
@@ -66,6 +71,7 @@ export class ResidualProbes {
       return { z, gRe, gIm, gx0Re, gx0Im, zbRe, zbIm };
     };
     this.probes = [probe(), probe()];
+    this.weightings = this.probes.map((p) => ({ re: p.gRe, im: p.gIm, sumRe: new Float64Array(BLOCK_WIDTH), sumIm: new Float64Array(BLOCK_WIDTH) }));
     let bMax = 0;
     for (let i = 0; i < n; i++) bMax = Math.max(bMax, bRe[i] * bRe[i] + bIm[i] * bIm[i]);
     this.bMax = Math.sqrt(bMax);
@@ -75,38 +81,26 @@ export class ResidualProbes {
     return bRe === this.bRe && bIm === this.bIm && x0 === this.x0;
   }
 
-  /** g·W_b of every column b of an interleaved block (by pivot step), per probe: one pass over the block. */
-  blockDots(re: Float64Array, im: Float64Array, width: number): ComplexVector[] {
-    return this.probes.map(({ gRe, gIm }) => {
-      const outRe = new Float64Array(width);
-      const outIm = new Float64Array(width);
-      const n = gRe.length;
-      for (let k = 0, p = 0; k < n; k++) {
-        const gr = gRe[k];
-        const gi = gIm[k];
-        for (let b = 0; b < width; b++, p++) {
-          const wr = re[p];
-          const wi = im[p];
-          outRe[b] += gr * wr - gi * wi;
-          outIm[b] += gr * wi + gi * wr;
-        }
-      }
-      return { re: outRe, im: outIm };
-    });
+  /**
+   * The probes as weights for a block's back substitution (upperSolveBlockInPlace), which then forms g·W_b of
+   * every column b; the sums are reused by the next block, so read them (relativeResidual) before solving again.
+   */
+  weights(): StepWeights[] {
+    return this.weightings;
   }
 
   /**
    * The larger probe reading of ||(A + ΔA) x − (b + Δb)|| for x = x0 − Σ_b W_b t_b (columns offset.. of the block
    * whose dots are given), relative to ||A||∞ ||x||∞ + ||b||∞ (the base b's, which errs strict when Δb adds to b).
    */
-  relativeResidual(dots: ComplexVector[], offset: number, m: number, tRe: Float64Array, tIm: Float64Array, xMax: number, aNorm: number, change: ProbeTerm): number {
+  relativeResidual(dots: readonly StepWeights[], offset: number, m: number, tRe: Float64Array, tIm: Float64Array, xMax: number, aNorm: number, change: ProbeTerm): number {
     let worst = 0;
     this.probes.forEach((probe, i) => {
       let re = probe.gx0Re - probe.zbRe;
       let im = probe.gx0Im - probe.zbIm;
       for (let b = 0; b < m; b++) {
-        const dr = dots[i].re[offset + b];
-        const di = dots[i].im[offset + b];
+        const dr = dots[i].sumRe[offset + b];
+        const di = dots[i].sumIm[offset + b];
         re -= dr * tRe[b] - di * tIm[b];
         im -= dr * tIm[b] + di * tRe[b];
       }

@@ -51,10 +51,17 @@ describe('residual probes', () => {
   const xMax = Math.max(...[...x0.re].map((re, i) => Math.hypot(re, x0.im[i])));
   const none = () => ({ re: 0, im: 0 });
   const dotsOf = (w: { re: Float64Array; im: Float64Array }) => {
-    // one column W by pivot step, as a block of width 1
-    const re = Float64Array.from(lu.colOrder, (c) => w.re[c]);
-    const im = Float64Array.from(lu.colOrder, (c) => w.im[c]);
-    return probes.blockDots(re, im, 1);
+    // g·W for one column W, as the block's back substitution forms it (weights by pivot step)
+    const weights = probes.weights();
+    for (const g of weights) {
+      g.sumRe[0] = 0;
+      g.sumIm[0] = 0;
+      lu.colOrder.forEach((c, k) => {
+        g.sumRe[0] += g.re[k] * w.re[c] - g.im[k] * w.im[c];
+        g.sumIm[0] += g.re[k] * w.im[c] + g.im[k] * w.re[c];
+      });
+    }
+    return weights;
   };
 
   it('reads a true answer as small', () => {

@@ -31,7 +31,9 @@ describe('block triangular solves agree with mathjs lusolve', () => {
         }
       });
       lowerSolveBlockInPlace(lu, yRe, yIm, width);
-      upperSolveBlockInPlace(lu, yRe, yIm, width);
+      // weights by pivot step: the sums must be Σ_k w_k x_k of each solved column
+      const weight = { re: Float64Array.from({ length: nodes }, () => rng()), im: Float64Array.from({ length: nodes }, () => rng()), sumRe: new Float64Array(width), sumIm: new Float64Array(width) };
+      upperSolveBlockInPlace(lu, yRe, yIm, width, [weight]);
       columns.forEach((c, b) => {
         const x = { re: new Float64Array(nodes), im: new Float64Array(nodes) };
         for (let k = 0; k < nodes; k++) {
@@ -39,7 +41,16 @@ describe('block triangular solves agree with mathjs lusolve', () => {
           x.im[lu.colOrder[k]] = yIm[k * width + b];
         }
         // source: mathjs lusolve as independent dense reference
-        expect(relativeDifference(x, mathjsSolve(a, c.re, c.im)), `column ${b}`).toBeLessThan(1e-9);
+        const expected = mathjsSolve(a, c.re, c.im);
+        expect(relativeDifference(x, expected), `column ${b}`).toBeLessThan(1e-9);
+        let sr = 0;
+        let si = 0;
+        for (let k = 0; k < nodes; k++) {
+          const j = lu.colOrder[k];
+          sr += weight.re[k] * expected.re[j] - weight.im[k] * expected.im[j];
+          si += weight.re[k] * expected.im[j] + weight.im[k] * expected.re[j];
+        }
+        expect(Math.hypot(weight.sumRe[b] - sr, weight.sumIm[b] - si) / Math.hypot(sr, si), `weighted sum ${b}`).toBeLessThan(1e-9);
       });
     });
   }
