@@ -4,8 +4,8 @@
 // Prints figures and their ratio to the targets; asserts nothing.
 // Run with `npm run bench:editor`; `npm run bench:editor -- --sweep` runs the break sweep part alone.
 import { cpus, loadavg } from 'node:os';
-import { ensureWebBuild, launchBrowser, startServer } from '../e2e/harness';
-import { demoProjectId, newSheet, openAs, WIDE } from '../e2e/editor-support';
+import { ensureWebBuild, launchBrowser, startServer, WIDE } from '../e2e/harness';
+import { demoProjectId, newSheet, openAs } from '../e2e/editor-support';
 import { generatedBuilding } from './generated-sheet';
 import { sweepBench } from './editor-sweep-bench';
 

@@ -7,8 +7,8 @@ import { loadavg } from 'node:os';
 import type { Browser } from 'playwright-core';
 import { breakSweepSync } from '../../solver';
 import { buildingSheet } from '../../solver/bench/building-sheet';
-import { el, seeTestId, type ServerProcess } from '../e2e/harness';
-import { demoProjectId, newSheet, openAs, WIDE } from '../e2e/editor-support';
+import { el, seeTestId, WIDE, type ServerProcess } from '../e2e/harness';
+import { demoProjectId, newSheet, openAs } from '../e2e/editor-support';
 
 const TARGET_MS = 2000;
 const BUSES = 1000;

@@ -12,7 +12,7 @@ import * as Y from 'yjs';
 import { TestClient } from '../support/http-client';
 import { connectSheet } from '../support/sync-client';
 import { spawnServer } from '../support/server-process';
-import { freePort } from '../support/test-server';
+import { freePort } from '../support/free-port';
 import { mkdtempSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';

@@ -1,24 +1,17 @@
 // What the editor's browser tests share: signed-in browser contexts (the session cookie from an API sign-in),
 // sheets made through the API, touch input through Chromium's DevTools protocol (taps, drags, pinches), and
 // readings of the drawing from the page itself (the world layer's transform, symbols' boxes, value tags).
-import type { Browser, BrowserContext, CDPSession, Page } from 'playwright-core';
+import type { Browser, CDPSession, Page } from 'playwright-core';
 import { TestClient } from '../support/http-client';
-import { assert, el, log, type ServerProcess } from './harness';
-
-export const DEMO_PASSWORD = 'larkspur-demo-2026';
-export const PHONE = { width: 390, height: 844 };
-export const WIDE = { width: 1440, height: 900 };
+import { assert, DEMO_PASSWORD, newBrowserPage, type OpenPage, type ServerProcess } from './harness';
 
 export interface Point {
   x: number;
   y: number;
 }
 
-export interface Opened {
-  context: BrowserContext;
-  page: Page;
+export interface Opened extends OpenPage {
   api: TestClient;
-  problems: string[];
   touch: Touch;
 }
 
@@ -29,34 +22,21 @@ export async function apiAs(server: ServerProcess, email: string): Promise<TestC
   return api;
 }
 
-/** A browser context signed in as `email`, with touch, at the given size. */
+/** Touch input for a page through its own DevTools session. */
+export async function touchOf(p: OpenPage): Promise<Touch> {
+  return new Touch(await p.context.newCDPSession(p.page), p.page);
+}
+
+/** A browser context signed in as `email` (the API sign-in's session cookie), with touch, at the given size. */
 export async function openAs(browser: Browser, server: ServerProcess, email: string, viewport: { width: number; height: number }): Promise<Opened> {
   const api = await apiAs(server, email);
-  const phone = viewport.width < 768;
-  const context = await browser.newContext({
-    viewport,
-    colorScheme: 'light',
-    locale: 'en-GB',
-    timezoneId: 'UTC',
-    hasTouch: true,
-    ...(phone ? { isMobile: true, deviceScaleFactor: 2 } : {}),
-  });
+  const opened = await newBrowserPage(browser, viewport, { touch: true });
   const cookies = api.cookieHeader().split('; ').filter(Boolean).map((pair) => {
     const eq = pair.indexOf('=');
     return { name: pair.slice(0, eq), value: pair.slice(eq + 1), url: server.url };
   });
-  await context.addCookies(cookies);
-  const page = await context.newPage();
-  const problems: string[] = [];
-  page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-  page.on('console', (message) => {
-    if (message.type() === 'error' && !message.text().startsWith('Failed to load resource')) problems.push(`console error: ${message.text()}`);
-  });
-  page.on('response', (response) => {
-    if (response.status() >= 500) problems.push(`${response.status()} for ${response.url()}`);
-  });
-  const cdp = await context.newCDPSession(page);
-  return { context, page, api, problems, touch: new Touch(cdp, page) };
+  await opened.context.addCookies(cookies);
+  return { ...opened, api, touch: await touchOf(opened) };
 }
 
 export async function demoProjectId(api: TestClient): Promise<string> {
@@ -189,5 +169,3 @@ export async function waitForTag(page: Page, key: string, check: (v: number) => 
   }
   throw new Error(`tag ${key}: expected ${what}, last read ${last}`);
 }
-
-export { el, log };

@@ -4,19 +4,17 @@
 // check the new voltages against the hand calculation, undo, reload and find the sheet as left.
 // Screenshots of each step land in tests/e2e/screenshots/editor-*.png.
 import type { Browser, Page } from 'playwright-core';
-import { assert, assertTouchTarget, el, ensureWebBuild, launchBrowser, log, screenshot, seeTestId, startServer, type ServerProcess } from './harness';
+import { assert, assertTouchTarget, el, log, PHONE, runBrowserTest, screenshot, seeTestId, WIDE, type ServerProcess } from './harness';
 import {
   demoProjectId,
   documentOf,
   newSheet,
   openAs,
-  PHONE,
   symbolBox,
   tagNumber,
   toScreen,
   viewTransform,
   waitForTag,
-  WIDE,
   type Opened,
   type Point,
 } from './editor-support';
@@ -324,23 +322,7 @@ async function drawingJourney(browser: Browser, server: ServerProcess, size: { w
   await o.context.close();
 }
 
-async function main() {
-  ensureWebBuild();
-  const server = await startServer();
-  const browser = await launchBrowser();
-  try {
-    await drawingJourney(browser, server, PHONE, 'phone');
-    await drawingJourney(browser, server, WIDE, 'wide');
-  } finally {
-    await browser.close();
-    await server.stop();
-  }
-}
-
-main().then(
-  () => log('editor: all passed'),
-  (error) => {
-    console.error(error);
-    process.exit(1);
-  },
-);
+runBrowserTest('editor', async (browser, server) => {
+  await drawingJourney(browser, server, PHONE, 'phone');
+  await drawingJourney(browser, server, WIDE, 'wide');
+});

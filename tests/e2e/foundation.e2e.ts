@@ -2,57 +2,30 @@
 // sheet, reset a password through the local outbox, and the demo users' view of "Larkspur Row" on a phone
 // (390x844) and a wide screen (1440x900), in the light theme and once in the dark one.
 import { randomUUID } from 'node:crypto';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import {
   assert,
   byPrefix,
+  DEMO_PASSWORD,
   el,
   txt,
   assertTouchTarget,
-  ensureWebBuild,
-  launchBrowser,
   log,
+  newBrowserPage,
   notSeeTestId,
   notSeeText,
+  PHONE,
+  runBrowserTest,
   screenshot,
   seeTestId,
   seeText,
-  startServer,
+  signInWithForm as signIn,
+  WIDE,
   type ServerProcess,
 } from './harness';
 
-const DEMO_PASSWORD = 'larkspur-demo-2026';
-const PHONE = { width: 390, height: 844 };
-const WIDE = { width: 1440, height: 900 };
-
-// The page in use, so that a failure can leave a picture of what the browser showed.
-let currentPage: Page | null = null;
-
-async function newPage(browser: Browser, viewport: { width: number; height: number }, dark = false) {
-  const context: BrowserContext = await browser.newContext({
-    viewport,
-    colorScheme: dark ? 'dark' : 'light',
-    locale: 'en-GB',
-    timezoneId: 'UTC',
-    ...(viewport.width < 768 ? { isMobile: true, hasTouch: true, deviceScaleFactor: 2 } : {}),
-  });
-  const page = await context.newPage();
-  currentPage = page;
-  const problems: string[] = [];
-  page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-  page.on('console', (message) => {
-    // Refused requests (the wrong password's 401) are expected; failed responses are judged below instead.
-    if (message.type() === 'error' && !message.text().startsWith('Failed to load resource')) {
-      problems.push(`console error: ${message.text()}`);
-    }
-  });
-  page.on('response', (response) => {
-    const { pathname } = new URL(response.url());
-    const missingFile = response.status() === 404 && !pathname.startsWith('/api/');
-    if (response.status() >= 500 || missingFile) problems.push(`${response.status()} for ${response.url()}`);
-  });
-  return { context, page, problems };
-}
+// A missing font or script (a 404 outside /api/) fails these journeys too.
+const newPage = (browser: Browser, viewport: { width: number; height: number }, dark = false) => newBrowserPage(browser, viewport, { dark, missingFiles: true });
 
 /** The shipped fonts are really in use, not a fallback: Inter for words and JetBrains Mono for the figures. */
 async function assertFontsLoaded(page: Page) {
@@ -73,15 +46,6 @@ async function assertFontsLoaded(page: Page) {
     .first()
     .evaluate((node) => getComputedStyle(node).fontFamily);
   assert(figure.includes('JetBrainsMono'), `a sheet count is drawn in ${figure}, not JetBrains Mono`);
-}
-
-async function signIn(page: Page, url: string, email: string, password: string) {
-  await page.goto(`${url}/sign-in`);
-  await seeTestId(page, 'sign-in-screen');
-  await el(page, 'email').fill(email);
-  await el(page, 'password').fill(password);
-  await el(page, 'sign-in-submit').click();
-  await seeTestId(page, 'projects-panel');
 }
 
 async function signOut(page: Page) {
@@ -304,37 +268,11 @@ async function darkJourney(browser: Browser, server: ServerProcess) {
   await context.close();
 }
 
-async function main() {
-  ensureWebBuild();
-  let server: ServerProcess | null = null;
-  let browser: Browser | null = null;
-  try {
-    server = await startServer();
-    log(`server at ${server.url}`);
-    browser = await launchBrowser();
-    await phoneJourney(browser, server);
-    log('phone journey passed');
-    await wideJourney(browser, server);
-    log('wide journey passed');
-    await darkJourney(browser, server);
-    log('dark journey passed');
-  } catch (error) {
-    if (currentPage && !currentPage.isClosed()) await screenshot(currentPage, 'FAILED').catch(() => undefined);
-    if (server) console.error(`[e2e] server output:\n${server.output.slice(-40).join('\n')}`);
-    throw error;
-  } finally {
-    await browser?.close().catch(() => undefined);
-    await server?.stop();
-  }
-}
-
-main().then(
-  () => {
-    log('foundation: all checks passed');
-    process.exit(0);
-  },
-  (error) => {
-    console.error(`[e2e] foundation FAILED: ${error instanceof Error ? (error.stack ?? error.message) : error}`);
-    process.exit(1);
-  },
-);
+runBrowserTest('foundation', async (browser, server) => {
+  await phoneJourney(browser, server);
+  log('phone journey passed');
+  await wideJourney(browser, server);
+  log('wide journey passed');
+  await darkJourney(browser, server);
+  log('dark journey passed');
+});

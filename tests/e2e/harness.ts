@@ -2,10 +2,10 @@
 // fresh data folder, Debian's Chromium through playwright-core, and a few waits that fail with a clear message.
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Locator, type Page } from 'playwright-core';
+import { freePort } from '../support/free-port';
 
 export const root = path.resolve(__dirname, '..', '..');
 export const screenshotDir = path.join(__dirname, 'screenshots');
@@ -25,18 +25,6 @@ export function ensureWebBuild() {
       ? { status: 0 }
       : spawnSync('npx', ['expo', 'export', '--platform', 'web', '--output-dir', 'dist'], { cwd: root, stdio: 'inherit', env });
   if (result.status !== 0) throw new Error(`The web build failed (exit code ${result.status})`);
-}
-
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer();
-    probe.once('error', reject);
-    probe.listen(0, '127.0.0.1', () => {
-      const address = probe.address();
-      const port = typeof address === 'object' && address ? address.port : 0;
-      probe.close(() => resolve(port));
-    });
-  });
 }
 
 export interface ServerProcess {
@@ -211,14 +199,25 @@ export interface OpenPage {
   problems: string[];
 }
 
+export interface PageOptions {
+  /** The dark colour scheme instead of the light one. */
+  dark?: boolean;
+  /** Touch input at any size (a phone-sized page always has it). */
+  touch?: boolean;
+  /** Count a 404 for anything outside /api/ (a missing font or script) as a problem too. */
+  missingFiles?: boolean;
+}
+
 /** A fresh browser context (no cookies: a different person) at a phone's or a wide screen's size. */
-export async function newBrowserPage(browser: Browser, viewport: { width: number; height: number }, options: { dark?: boolean } = {}): Promise<OpenPage> {
+export async function newBrowserPage(browser: Browser, viewport: { width: number; height: number }, options: PageOptions = {}): Promise<OpenPage> {
+  const phone = viewport.width < 768;
   const context = await browser.newContext({
     viewport,
     colorScheme: options.dark ? 'dark' : 'light',
     locale: 'en-GB',
     timezoneId: 'UTC',
-    ...(viewport.width < 768 ? { isMobile: true, hasTouch: true, deviceScaleFactor: 2 } : {}),
+    ...(phone || options.touch ? { hasTouch: true } : {}),
+    ...(phone ? { isMobile: true, deviceScaleFactor: 2 } : {}),
   });
   const page = await context.newPage();
   lastPage = page;
@@ -229,7 +228,8 @@ export async function newBrowserPage(browser: Browser, viewport: { width: number
     if (message.type() === 'error' && !message.text().startsWith('Failed to load resource')) problems.push(`console error: ${message.text()}`);
   });
   page.on('response', (response) => {
-    if (response.status() >= 500) problems.push(`${response.status()} for ${response.url()}`);
+    const missingFile = options.missingFiles === true && response.status() === 404 && !new URL(response.url()).pathname.startsWith('/api/');
+    if (response.status() >= 500 || missingFile) problems.push(`${response.status()} for ${response.url()}`);
   });
   return { context, page, problems };
 }

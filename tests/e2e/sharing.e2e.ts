@@ -4,7 +4,7 @@
 // load; the owner sees the pin arrive live, finds its e-mail in the outbox and replies, which the visitor sees
 // live; the owner revokes the link and the visitor's page says so. Pictures at 390x844 and 1440x900 (sharing-*).
 import type { Browser, Page } from 'playwright-core';
-import { Touch } from './editor-support';
+import { touchOf, type Touch } from './editor-support';
 import { DEMO_SHEETS } from '../../db/seed';
 import {
   assert,
@@ -29,10 +29,6 @@ const FARM = 'Farm service, 120/240 V';
 const SEEDED_PINS = DEMO_SHEETS.find((s) => s.name === FARM)?.pins.length ?? 0;
 const FIRST = SEEDED_PINS + 1;
 const PINS_AT_START = SEEDED_PINS === 0 ? 'No pins yet.' : `${SEEDED_PINS} open pin${SEEDED_PINS === 1 ? '' : 's'}, 0 resolved`;
-
-async function touchOf(p: OpenPage): Promise<Touch> {
-  return new Touch(await p.context.newCDPSession(p.page), p.page);
-}
 
 /** The middle of an element's symbol as drawn, in page pixels. */
 async function middleOf(page: Page, elementId: string) {

@@ -3,10 +3,9 @@
 // filter, see the voltage profile of the base case beside the fault, run the break sweep and show its worst
 // opening, match two pasted readings, and see the loading; on a phone (cards) and a wide screen (table).
 import type { Browser, Page } from 'playwright-core';
-import { assert, byPrefix, el, ensureWebBuild, launchBrowser, log, screenshot, seeTestId, startServer, type ServerProcess } from './harness';
-import { demoProjectId, openAs, PHONE, WIDE } from './editor-support';
-
-let currentPage: Page | null = null;
+import { assert, byPrefix, el, log, PHONE, runBrowserTest, screenshot, seeTestId, WIDE, type ServerProcess } from './harness';
+import { apiAs, demoProjectId, openAs } from './editor-support';
+import { sheetIdByName } from './schedule-steps';
 
 /** A value of the case on show, read from the editor's own results through the ?probe handle (tags are hidden when zoomed out). */
 async function shownValue(page: Page, key: string): Promise<number> {
@@ -27,14 +26,9 @@ async function waitForValue(page: Page, key: string, check: (v: number) => boole
   throw new Error(`${key}: expected ${what}, last read ${last}`);
 }
 
-async function demoSheetId(server: ServerProcess, browser: Browser) {
-  const { api, context } = await openAs(browser, server, 'owner@example.com', PHONE);
-  const projectId = await demoProjectId(api);
-  const r = await api.get(`/api/projects/${projectId}/sheets`);
-  const sheet = (r.body.sheets as { id: string; name: string }[]).find((s) => s.name === 'Building distribution');
-  assert(sheet, 'the demo sheet "Building distribution" is missing');
-  await context.close();
-  return sheet.id;
+async function demoSheetId(server: ServerProcess) {
+  const api = await apiAs(server, 'owner@example.com');
+  return sheetIdByName(api, await demoProjectId(api), 'Building distribution');
 }
 
 /** The symmetrical kA of each case card or row on show, in page order. */
@@ -53,7 +47,6 @@ async function shownCurrents(page: Page): Promise<{ key: string; ka: number }[]>
 
 async function journey(browser: Browser, server: ServerProcess, sheetId: string, size: { width: number; height: number }, name: 'phone' | 'wide') {
   const { page, context, problems } = await openAs(browser, server, 'owner@example.com', size);
-  currentPage = page;
   await page.goto(`${server.url}/sheets/${sheetId}?probe`);
   // The base case on the drawing: the service bus near 120 V.
   const baseVolts = await waitForValue(page, 'service:ln-A', (v) => v > 100 && v < 130, 'about 120 V', 20_000);
@@ -150,36 +143,10 @@ async function journey(browser: Browser, server: ServerProcess, sheetId: string,
   await context.close();
 }
 
-async function main() {
-  ensureWebBuild();
-  let server: ServerProcess | null = null;
-  let browser: Browser | null = null;
-  try {
-    server = await startServer();
-    log(`server at ${server.url}`);
-    browser = await launchBrowser();
-    const sheetId = await demoSheetId(server, browser);
-    await journey(browser, server, sheetId, PHONE, 'phone');
-    log('phone journey passed');
-    await journey(browser, server, sheetId, WIDE, 'wide');
-    log('wide journey passed');
-  } catch (error) {
-    if (currentPage && !currentPage.isClosed()) await screenshot(currentPage, 'FAILED').catch(() => undefined);
-    if (server) console.error(`[e2e] server output:\n${server.output.slice(-40).join('\n')}`);
-    throw error;
-  } finally {
-    await browser?.close().catch(() => undefined);
-    await server?.stop();
-  }
-}
-
-main().then(
-  () => {
-    log('studies: all checks passed');
-    process.exit(0);
-  },
-  (error) => {
-    console.error(`[e2e] studies FAILED: ${error instanceof Error ? (error.stack ?? error.message) : error}`);
-    process.exit(1);
-  },
-);
+runBrowserTest('studies', async (browser, server) => {
+  const sheetId = await demoSheetId(server);
+  await journey(browser, server, sheetId, PHONE, 'phone');
+  log('phone journey passed');
+  await journey(browser, server, sheetId, WIDE, 'wide');
+  log('wide journey passed');
+});

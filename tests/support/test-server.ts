@@ -1,10 +1,10 @@
 // Starts a real server on a free port with a fresh copy of the migrated template database.
 import { cpSync, mkdtempSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { readConfig } from '../../server/config';
 import { startServer, type RunningServer } from '../../server/app';
+import { freePort } from './free-port';
 
 export interface TestServer extends RunningServer {
   dataDir: string;
@@ -37,14 +37,3 @@ export function freshDataDir(): string {
   return dir;
 }
 
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer();
-    probe.once('error', reject);
-    probe.listen(0, '127.0.0.1', () => {
-      const address = probe.address();
-      const port = typeof address === 'object' && address ? address.port : 0;
-      probe.close(() => resolve(port));
-    });
-  });
-}

@@ -3,7 +3,8 @@
 import { rmSync } from 'node:fs';
 import { afterAll, expect, it } from 'vitest';
 import { SheetCommands } from '../../editor/document/commands';
-import { freshDataDir, freePort } from '../support/test-server';
+import { freePort } from '../support/free-port';
+import { freshDataDir } from '../support/test-server';
 import { TestClient } from '../support/http-client';
 import { connectSheet } from '../support/sync-client';
 import { spawnServer, type ServerProcess } from '../support/server-process';
