@@ -30,7 +30,7 @@ const EMPTY = {
   history: new Store({ canUndo: false, canRedo: false }),
   scene: new Store({ scene: buildScene({ elements: new Map(), connections: new Map() }) }),
   view: new Store<{ band: ZoomBand; zoom: number; renderRect: Rect | null }>({ band: 'near', zoom: 1, renderRect: null }),
-  mirror: new Store({ snapshot: { version: 0, name: '', settings: {}, elements: new Map(), connections: new Map(), whatIfs: new Map() } }),
+  mirror: new Store({ snapshot: { version: 0, settings: {}, elements: new Map(), connections: new Map(), whatIfs: new Map() } }),
 };
 
 const LOAD_ROWS = 30;

@@ -162,7 +162,7 @@ export default function SheetScreen() {
     />
   );
   const sheetImport = (
-    <SheetImportForm sheetName={view.snapshot.name || found.sheet.name} maxBytes={MAX_SHEET_JSON_BYTES} onRead={sa.readSheetText} onReplace={sa.replaceSheet} onDone={say} onCancel={sa.close} />
+    <SheetImportForm sheetName={found.sheet.name} maxBytes={MAX_SHEET_JSON_BYTES} onRead={sa.readSheetText} onReplace={sa.replaceSheet} onDone={say} onCancel={sa.close} />
   );
   const cautions = <Cautions caution={view.caution} assumptions={view.assumptions} standardLabel={view.standardLabel} />;
   const crew = <CrewList crew={view.crew} status={view.link.status} />;
@@ -192,7 +192,7 @@ export default function SheetScreen() {
         isPhone={isPhone}
         topBar={
           <TopBar
-            sheetName={view.snapshot.name || found.sheet.name}
+            sheetName={found.sheet.name}
             caseLabel={view.caseLabel}
             readOnly={!view.editable}
             crew={view.crew}
