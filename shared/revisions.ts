@@ -93,6 +93,8 @@ export interface RevisionComparison {
   connections: { added: string[]; removed: string[]; changed: string[] };
   whatIfs: { added: ElementChange[]; removed: ElementChange[]; changed: ElementChange[] };
   settings: string[];
+  /** The sheet was renamed in its project's list since the revision (the name is part of what a revision holds). */
+  renamed: { from: string; to: string } | null;
   /** Base-case voltages that moved by at least VOLTAGE_MOVE_THRESHOLD volts, largest first. */
   voltages: VoltageMove[];
   voltageThresholdVolts: number;

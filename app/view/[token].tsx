@@ -93,7 +93,7 @@ export default function ViewLinkScreen() {
         isPhone={isPhone}
         topBar={
           <TopBar
-            sheetName={view.snapshot.name || found.sheet.name}
+            sheetName={found.sheet.name}
             caseLabel={view.caseLabel}
             readOnly
             crew={view.crew}

@@ -1,18 +1,19 @@
-// Who is on the sheet now, each in their colour, and whether the link to the others is live.
+// Who is on the sheet now, once each however many tabs they have open, each in their colour, and whether the link
+// to the others is live.
 import { StyleSheet, View } from 'react-native';
-import type { CrewMember } from '@/editor/presence/crew';
+import type { CrewPerson } from '@/editor/presence/crew';
 import type { ConnectionStatus } from '@/editor/session/sheet-session';
 import { space } from '../theme/tokens';
 import { Text } from '../ui/text';
 
-export function CrewList({ crew, status }: { crew: CrewMember[]; status: ConnectionStatus }) {
+export function CrewList({ crew, status }: { crew: CrewPerson[]; status: ConnectionStatus }) {
   return (
     <View style={styles.list} testID="crew-list">
       <Text variant="small" tone="muted" testID="crew-link">
         {status === 'connected' ? 'Live: edits reach everyone as they happen.' : status === 'connecting' ? 'Connecting…' : 'Offline: your edits are kept here and merge when the link returns.'}
       </Text>
       {crew.map((m) => (
-        <View key={m.clientId} style={styles.row} testID={`crew-member-${m.userId}`}>
+        <View key={m.userId} style={styles.row} testID={`crew-member-${m.userId}`}>
           <View style={[styles.swatch, { backgroundColor: m.color }]} />
           <Text style={styles.name}>
             {m.name}
@@ -20,6 +21,7 @@ export function CrewList({ crew, status }: { crew: CrewMember[]; status: Connect
           </Text>
           <Text variant="caption" tone="muted">
             {m.readOnly ? 'Viewing' : 'Editing'}
+            {m.tabs > 1 ? ` · ${m.tabs} tabs` : ''}
           </Text>
         </View>
       ))}

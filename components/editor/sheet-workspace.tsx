@@ -133,7 +133,7 @@ export function SheetWorkspace({ workspace, ready, isPhone, topBar, about, sheet
       ? {
           title: 'Import a sheet',
           testID: 'panel-sheet-import',
-          body: <SheetImportForm sheetName={view.snapshot.name || sheetName} maxBytes={MAX_SHEET_JSON_BYTES} onRead={sa.readSheetText} onReplace={sa.replaceSheet} onDone={say} onCancel={sa.close} />,
+          body: <SheetImportForm sheetName={sheetName} maxBytes={MAX_SHEET_JSON_BYTES} onRead={sa.readSheetText} onReplace={sa.replaceSheet} onDone={say} onCancel={sa.close} />,
         }
       : null;
   }

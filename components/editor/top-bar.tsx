@@ -2,7 +2,7 @@
 // colours) with the connection's state, and the sheet's details.
 import { Pressable, StyleSheet, View } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
-import type { CrewMember } from '@/editor/presence/crew';
+import type { CrewPerson } from '@/editor/presence/crew';
 import type { ConnectionStatus } from '@/editor/session/sheet-session';
 import { radius, space, touchTargetMin } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
@@ -13,7 +13,8 @@ export interface TopBarProps {
   sheetName: string;
   caseLabel: string;
   readOnly: boolean;
-  crew: CrewMember[];
+  /** One entry per person. */
+  crew: CrewPerson[];
   status: ConnectionStatus;
   synced: boolean;
   compact: boolean;
@@ -51,7 +52,7 @@ export function TopBar(p: TopBarProps) {
         >
           <View style={[styles.statusDot, { backgroundColor: statusColor }]} testID={`link-${p.status}`} />
           {shown.map((m) => (
-            <View key={m.clientId} style={[styles.initial, { backgroundColor: m.color }]} testID={`crew-chip-${m.userId}`}>
+            <View key={m.userId} style={[styles.initial, { backgroundColor: m.color }]} testID={`crew-chip-${m.userId}`}>
               <Text variant="caption" style={styles.initialText}>
                 {initials(m.name)}
               </Text>

@@ -37,6 +37,11 @@ export function RevisionComparison({ comparison }: { comparison: Comparison }) {
   const moved = c.voltages.slice(0, 30);
   return (
     <View style={styles.column} testID="comparison">
+      {c.renamed ? (
+        <Text variant="small" tone="muted" testID="comparison-renamed">
+          Sheet renamed since: “{c.renamed.from || 'unnamed'}” → “{c.renamed.to}”
+        </Text>
+      ) : null}
       <Changes title="Elements added since" items={c.elements.added} />
       <Changes title="Elements removed since" items={c.elements.removed} />
       <Changes title="Elements changed" items={c.elements.changed} />

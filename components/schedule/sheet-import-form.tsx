@@ -96,7 +96,7 @@ export function SheetImportForm(p: SheetImportFormProps) {
       <ConfirmDialog
         visible={confirming && !!result?.ok}
         title="Replace the drawing?"
-        message={`Everything on “${p.sheetName}” is replaced by “${result?.ok ? result.summary.name || 'the imported sheet' : ''}” for everyone on the sheet. Undo takes it back.`}
+        message={`Everything drawn on “${p.sheetName}” is replaced by the drawing of “${result?.ok ? result.summary.name || 'the imported sheet' : ''}” for everyone on the sheet; the sheet keeps its name. Undo takes it back.`}
         confirmLabel="Replace"
         danger
         onCancel={() => setConfirming(false)}

@@ -4,7 +4,7 @@ import * as Y from 'yjs';
 import type { z } from 'zod';
 import type { Connection, elementSchema, Sheet, SheetSettings, WhatIfChange } from '../../shared/sheet';
 import { newId } from './ids';
-import { collection, sheetMeta, settingsMap, writeSheet, type Collection } from './sheet-doc';
+import { collection, settingsMap, writeSheet, type Collection } from './sheet-doc';
 import { fromY, setAtPath, toY, type Plain } from './y-values';
 
 type WithOptionalId<T> = T extends unknown ? Omit<T, 'id'> & { id?: string } : never;
@@ -33,10 +33,6 @@ export class SheetCommands {
       out = edit();
     }, this.origin);
     return out;
-  }
-
-  renameSheet(name: string): void {
-    this.run(() => sheetMeta(this.doc).set('name', name));
   }
 
   setSetting<K extends keyof SheetSettings>(key: K, value: SheetSettings[K]): void {

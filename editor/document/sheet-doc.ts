@@ -1,7 +1,11 @@
 // The sheet document on Yjs: the layout of the shared Y.Doc and its conversion to and from the sheet JSON format.
 //
-// Layout: map "sheet" { formatVersion, name }, map "settings" { leaf fields }, maps "elements", "connections" and
+// Layout: map "sheet" { formatVersion }, map "settings" { leaf fields }, maps "elements", "connections" and
 // "whatIfs", each keyed by id with one Y.Map per entry (nested plain objects are nested Y.Maps).
+//
+// The sheet's name is not in the document: it is the name in the project's sheet list (the database, renamed
+// through the API), the one name every screen, export and report shows. The JSON view gets it from the caller; a
+// name in an imported file is not kept, and one left in an older document is not read.
 import * as Y from 'yjs';
 import { readSheet, SHEET_FORMAT_VERSION, type ReadResult, type Sheet, type SheetInput } from '../../shared/sheet';
 import { assignPlain, fromY, type Plain } from './y-values';
@@ -30,13 +34,16 @@ export function isEmptyDoc(doc: Y.Doc): boolean {
   return sheetMeta(doc).size === 0 && COLLECTIONS.every((c) => collection(doc, c).size === 0) && settingsMap(doc).size === 0;
 }
 
-/** The document as plain JSON in the sheet format, as stored (not validated). An empty document is an empty sheet. */
-export function docToJson(doc: Y.Doc): Record<string, Plain> {
-  const meta = fromY(sheetMeta(doc)) as Record<string, Plain>;
+/**
+ * The document as plain JSON in the sheet format, as stored (not validated), named `name` (the sheet's name in its
+ * project's list). An empty document is an empty sheet.
+ */
+export function docToJson(doc: Y.Doc, name = ''): Record<string, Plain> {
+  const { name: _unused, ...meta } = fromY(sheetMeta(doc)) as Record<string, Plain>;
   const declared = docFormatVersion(doc) !== undefined;
   return {
     ...(declared ? {} : { formatVersion: SHEET_FORMAT_VERSION }),
-    name: '',
+    name,
     ...meta,
     settings: fromY(settingsMap(doc)),
     ...Object.fromEntries(COLLECTIONS.map((c) => [c, fromY(collection(doc, c))])),
@@ -50,11 +57,12 @@ export function readDoc(doc: Y.Doc): ReadResult {
 
 /**
  * Makes the document hold `sheet` (call inside a transaction). Only differing fields are written, so replacing a
- * sheet with a slightly changed copy is a small update that merges with concurrent edits.
+ * sheet with a slightly changed copy is a small update that merges with concurrent edits. The sheet's `name` is
+ * not written (the sheet list holds it), and a name an older document carries is removed.
  */
 export function writeSheet(doc: Y.Doc, sheet: Sheet | SheetInput): void {
   const json = JSON.parse(JSON.stringify(sheet)) as Record<string, Plain>;
-  const { settings, elements, connections, whatIfs, ...meta } = json;
+  const { settings, elements, connections, whatIfs, name: _listed, ...meta } = json;
   assignPlain(sheetMeta(doc), { ...meta, formatVersion: SHEET_FORMAT_VERSION });
   assignPlain(settingsMap(doc), (settings ?? {}) as Record<string, Plain>);
   const groups = { elements, connections, whatIfs } as Record<Collection, Plain | undefined>;

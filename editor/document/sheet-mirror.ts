@@ -34,7 +34,6 @@ export interface WhatIfView {
 export interface MirrorSnapshot {
   /** Grows by one with every change. */
   version: number;
-  name: string;
   settings: Record<string, Plain>;
   elements: ReadonlyMap<string, ElementView>;
   connections: ReadonlyMap<string, ConnectionView>;
@@ -97,7 +96,8 @@ export class SheetMirror {
         this.snapshot = {
           ...s,
           version: s.version + 1,
-          ...(name === 'settings' ? { settings: fromY(map) as Record<string, Plain> } : { name: str(map.get('name')) }),
+          // The "sheet" map holds only the format version (the sheet's name lives in the sheet list).
+          ...(name === 'settings' ? { settings: fromY(map) as Record<string, Plain> } : {}),
         };
         this.emit(tr, new Set([name]));
       };
@@ -125,7 +125,6 @@ export class SheetMirror {
       new Map([...collection(this.doc, name).entries()].map(([id, m]) => [id, view(id, fromY(m))] as const));
     return {
       version,
-      name: str(sheetMeta(this.doc).get('name')),
       settings: fromY(settingsMap(this.doc)) as Record<string, Plain>,
       elements: read('elements', elementView),
       connections: read('connections', connectionView),

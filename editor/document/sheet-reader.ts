@@ -77,7 +77,7 @@ export class SheetReader {
     }
     const sheet: Sheet = {
       formatVersion: SHEET_FORMAT_VERSION,
-      name: snapshot.name,
+      name: '', // the sheet list holds the name; solving does not need it
       settings: this.settings.value,
       elements: elements.values,
       connections: connections.values,

@@ -79,7 +79,7 @@ export function crewMember(clientId: number, state: Record<string, unknown>, sel
   };
 }
 
-/** One entry per person (a person with two tabs shows once, with the most recent state), this user first. */
+/** Every tab on the sheet (each has its own cursor and selection), this tab first, then by name. */
 export function crewList(states: Map<number, Record<string, unknown>>, selfId: number): CrewMember[] {
   const all: CrewMember[] = [];
   for (const [id, state] of states) {
@@ -87,4 +87,28 @@ export function crewList(states: Map<number, Record<string, unknown>>, selfId: n
     if (m) all.push(m);
   }
   return all.sort((a, b) => Number(b.self) - Number(a.self) || a.name.localeCompare(b.name));
+}
+
+/** A person on the sheet, however many tabs they have it open in. */
+export interface CrewPerson extends CrewMember {
+  tabs: number;
+}
+
+/**
+ * One entry per person (by user id; the server stamps it, and gives each unsigned visitor of a viewer link an id
+ * of their own) in the order of `tabs`: this tab's entry when the person is the one here, and editing when any of
+ * their tabs may edit.
+ */
+export function crewPeople(tabs: CrewMember[]): CrewPerson[] {
+  const byUser = new Map<string, CrewPerson>();
+  for (const t of tabs) {
+    const seen = byUser.get(t.userId);
+    if (!seen) {
+      byUser.set(t.userId, { ...t, tabs: 1 });
+      continue;
+    }
+    const kept = t.self && !seen.self ? t : seen;
+    byUser.set(t.userId, { ...kept, tabs: seen.tabs + 1, readOnly: seen.readOnly && t.readOnly });
+  }
+  return [...byUser.values()];
 }

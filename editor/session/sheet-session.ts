@@ -10,7 +10,7 @@ import { createUndoManager } from '../document/undo';
 import { drawnResults, reuseUnchanged } from '../results/value-tags';
 import { SolveScheduler, type SolveInput, type SolveMode } from '../solve/solve-scheduler';
 import type { SolveReply } from '../solve/solve-request';
-import { crewList, crewColor, distinctColors, type CrewMember, type LocalPresence } from '../presence/crew';
+import { crewList, crewColor, crewPeople, distinctColors, type CrewMember, type CrewPerson, type LocalPresence } from '../presence/crew';
 import { initialUiState, type EditorUiState } from './editor-state';
 import { initialResults, type ResultsState } from './results-state';
 import { Store } from './store';
@@ -47,7 +47,8 @@ export class SheetSession {
   readonly ui = new Store<EditorUiState>(initialUiState());
   readonly results = new Store<ResultsState>(initialResults());
   readonly link = new Store<LinkState>({ status: 'connecting', synced: false, ended: null });
-  readonly crew = new Store<{ members: CrewMember[] }>({ members: [] });
+  /** Every tab on the sheet (`members`, for the cursors) and one entry per person (`people`, for the crew list). */
+  readonly crew = new Store<{ members: CrewMember[]; people: CrewPerson[] }>({ members: [], people: [] });
   readonly history = new Store<{ canUndo: boolean; canRedo: boolean }>({ canUndo: false, canRedo: false });
   private provider: WebsocketProvider | null = null;
   private readonly scheduler: SolveScheduler;
@@ -111,7 +112,10 @@ export class SheetSession {
     });
     const awareness = provider.awareness;
     awareness.setLocalState({ ...this.presence });
-    const onAwareness = () => this.crew.set({ members: this.crewMembers() });
+    const onAwareness = () => {
+      const members = this.crewMembers();
+      this.crew.set({ members, people: crewPeople(members) });
+    };
     awareness.on('change', onAwareness);
     this.offs.push(() => awareness.off('change', onAwareness));
     onAwareness();

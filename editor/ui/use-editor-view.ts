@@ -19,18 +19,18 @@ import { initialResults } from '../session/results-state';
 import { buildScene } from '../canvas/scene';
 import type { ZoomBand } from '../canvas/canvas-controller';
 import type { LinkState } from '../session/sheet-session';
-import type { CrewMember } from '../presence/crew';
+import type { CrewMember, CrewPerson } from '../presence/crew';
 import type { Rect } from '../../shared/symbols';
 
 const EMPTY = {
   ui: new Store(initialUiState()),
   results: new Store(initialResults()),
   link: new Store<LinkState>({ status: 'connecting', synced: false, ended: null }),
-  crew: new Store<{ members: CrewMember[] }>({ members: [] }),
+  crew: new Store<{ members: CrewMember[]; people: CrewPerson[] }>({ members: [], people: [] }),
   history: new Store({ canUndo: false, canRedo: false }),
   scene: new Store({ scene: buildScene({ elements: new Map(), connections: new Map() }) }),
   view: new Store<{ band: ZoomBand; zoom: number; renderRect: Rect | null }>({ band: 'near', zoom: 1, renderRect: null }),
-  mirror: new Store({ snapshot: { version: 0, name: '', settings: {}, elements: new Map(), connections: new Map(), whatIfs: new Map() } }),
+  mirror: new Store({ snapshot: { version: 0, settings: {}, elements: new Map(), connections: new Map(), whatIfs: new Map() } }),
 };
 
 const LOAD_ROWS = 30;
@@ -60,7 +60,8 @@ export function useEditorView(handle: EditorHandle | null) {
   const ui = useStore(session?.ui ?? EMPTY.ui, (s) => s);
   const results = useStore(session?.results ?? EMPTY.results, (s) => s);
   const link = useStore(session?.link ?? EMPTY.link, (s) => s);
-  const crew = useStore(session?.crew ?? EMPTY.crew, (s) => s.members);
+  const crew = useStore(session?.crew ?? EMPTY.crew, (s) => s.people);
+  const tabs = useStore(session?.crew ?? EMPTY.crew, (s) => s.members);
   const history = useStore(session?.history ?? EMPTY.history, (s) => s);
   const scene = useStore(handle?.canvas.sceneStore ?? EMPTY.scene, (s) => s.scene);
   const view = useStore(handle?.canvas.view ?? EMPTY.view, (s) => s);
@@ -179,6 +180,8 @@ export function useEditorView(handle: EditorHandle | null) {
       ? 'Which conductor of the connection?'
       : `Which ${ui.chooser.kind === 'breaker' ? 'pole' : 'conductor'} of ${nameOf(ui.chooser.elementId)}?`
     : '';
+  // Cursors are per tab: a colleague's two tabs (or this person's other one) each show theirs.
+  const others = useMemo(() => tabs.filter((m) => !m.self), [tabs]);
   const chooserOpen = useMemo(() => {
     const c = ui.chooser;
     const out = new Set<string>();
@@ -195,7 +198,7 @@ export function useEditorView(handle: EditorHandle | null) {
     results,
     link,
     crew,
-    others: crew.filter((m) => !m.self),
+    others,
     history,
     scene,
     view,

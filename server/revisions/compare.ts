@@ -49,6 +49,8 @@ export function compareDocuments(
   const c = compareGroup(group(revision.document, 'connections'), group(live.document, 'connections'));
   const whatIfs = compareGroup(group(revision.document, 'whatIfs'), group(live.document, 'whatIfs'));
   const settings = differingPaths(group(revision.document, 'settings'), group(live.document, 'settings')).filter((p) => p !== '(value)');
+  const nameOf = (d: Json) => (typeof d.name === 'string' ? d.name : '');
+  const renamed = nameOf(revision.document) !== nameOf(live.document) ? { from: nameOf(revision.document), to: nameOf(live.document) } : null;
   const voltages: VoltageMove[] = [];
   const before = revision.base ? keyedVolts(revision.base) : new Map();
   const after = live.base ? keyedVolts(live.base) : new Map();
@@ -71,6 +73,7 @@ export function compareDocuments(
     connections: { added: c.added.map((x) => x.id), removed: c.removed.map((x) => x.id), changed: c.changed.map((x) => x.id) },
     whatIfs,
     settings,
+    renamed,
     voltages,
     voltageThresholdVolts: VOLTAGE_MOVE_THRESHOLD,
   };

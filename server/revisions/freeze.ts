@@ -7,13 +7,12 @@ import { docToJson } from '../../editor/document/sheet-doc';
 import { notFound } from '../http/errors';
 import type { RoomRegistry } from '../sync/room-registry';
 
-/** Takes the room's document as it is now: its Yjs state and its JSON view (the sheet's name filled in). */
+/** Takes the room's document as it is now: its Yjs state and its JSON view, named as the sheet list names it. */
 export async function freezeDocument(rooms: RoomRegistry, sheetId: string, sheetName: string) {
   return rooms.withRoom(sheetId, async (room) => {
     await room.flushed();
     const state = Y.encodeStateAsUpdate(room.doc);
-    const json = docToJson(room.doc) as Record<string, unknown>;
-    if (!json.name) json.name = sheetName;
+    const json = docToJson(room.doc, sheetName) as Record<string, unknown>;
     return { state, json };
   });
 }

@@ -4,7 +4,8 @@
 // a client's step 1 is answered with step 2 (what it lacks). A writer's step 2 and update messages are stored in
 // the database first, then applied to the room's document and relayed to the peers, a stored batch at a time.
 // Because the document only ever holds stored updates, everything a peer is sent (relays and step 2 replies alike)
-// has already been written: a crash loses nothing anyone saw. A read-only peer's step 2 and updates are dropped.
+// has already been written: a crash loses nothing anyone saw. A read-only peer's step 2 and updates are dropped
+// (and logged, unless they hold nothing the document lacks, as the step 2 every client sends on joining does).
 import * as Y from 'yjs';
 import * as decoding from 'lib0/decoding';
 import * as encoding from 'lib0/encoding';
@@ -12,6 +13,7 @@ import * as syncProtocol from 'y-protocols/sync';
 import * as awarenessProtocol from 'y-protocols/awareness';
 import type { DocumentStore } from './document-store';
 import { stampAwarenessUpdate } from './awareness-stamp';
+import { addsNothing } from './update-adds-nothing';
 
 export const MESSAGE_SYNC = 0;
 export const MESSAGE_AWARENESS = 1;
@@ -129,7 +131,9 @@ export class Room {
       if (step === syncProtocol.messageYjsSyncStep2 || step === syncProtocol.messageYjsUpdate) {
         const update = decoding.readVarUint8Array(decoder);
         if (!peer.canWrite) {
-          this.log(`sync ${this.sheetId}: dropped an update from read-only ${peer.user.id}`);
+          // Every client answers the room's step 1 with a step 2; a reader's carries nothing the room lacks
+          // (empty, or only what it was sent), so it is no write attempt and not worth a line.
+          if (!addsNothing(this.doc, update)) this.log(`sync ${this.sheetId}: dropped an update from read-only ${peer.user.id}`);
           return;
         }
         if (!isWellFormed(update)) {

@@ -61,7 +61,7 @@ describe('who may do what', () => {
       expect(list.body.revisions.map((r: any) => r.number)).toEqual([2, 1]);
       const one = await c.get(`${url}/1`);
       expect({ who, status: one.status }).toEqual({ who, status: 200 });
-      expect(one.body.revision.document.name).toBe(farm.name);
+      expect(one.body.revision.document.name).toBe('Service'); // the sheet list's name, not the imported file's
     }
     expect((await f.outsider.get(base())).status).toBe(404);
     expect((await f.outsider.get(`${base()}/1`)).status).toBe(404);

@@ -88,6 +88,29 @@ runBrowserTest('editor crew', async (browser, server) => {
   await screenshot(a.page, 'editor-crew-wide-owner');
   await screenshot(b.page, 'editor-crew-phone-editor');
 
+  // The owner opens the sheet in a second tab: still one person in every crew, with a cursor per tab.
+  const ownerTab2 = await a.context.newPage();
+  await ownerTab2.goto(`${server.url}/sheets/${sheetId}`);
+  await seeTestId(ownerTab2, 'sheet-canvas');
+  await seeTestId(ownerTab2, 'link-connected');
+  const box2 = (await el(ownerTab2, 'sheet-canvas').boundingBox())!;
+  await ownerTab2.mouse.move(box2.x + box2.width / 2 - 80, box2.y + 200);
+  await ownerTab2.mouse.move(box2.x + box2.width / 2 - 60, box2.y + 220, { steps: 4 });
+  const ownerCursors = `[data-testid="crew-cursor-${idOf('owner@example.com')}"]`;
+  await b.page.waitForFunction((sel) => document.querySelectorAll(sel).length === 2, ownerCursors, { timeout: 5000 });
+  for (const [page, who] of [[a.page, 'owner, first tab'], [ownerTab2, 'owner, second tab'], [b.page, 'editor'], [c.page, 'viewer']] as const) {
+    const chips = await page.locator(`[data-testid="crew-chip-${idOf('owner@example.com')}"]`).count();
+    assert(chips === 1, `the ${who} sees the owner ${chips} times in the top bar`);
+  }
+  await el(b.page, 'crew-button').click();
+  await seeTestId(b.page, 'crew-list');
+  const rows = b.page.locator(`[data-testid="crew-list"] [data-testid="crew-member-${idOf('owner@example.com')}"]`);
+  assert((await rows.count()) === 1, `the crew list names the owner ${await rows.count()} times`);
+  const row = (await rows.first().textContent()) ?? '';
+  assert(row.includes('2 tabs'), `the owner's crew row says ${row}`);
+  await screenshot(b.page, 'editor-crew-phone-two-tabs');
+  await ownerTab2.close();
+
   // The viewer: no editing tools, fields that cannot change, and a cut that stays a local trial.
   for (const id of ['tool-add', 'tool-undo', 'tool-redo', 'palette-source', 'palette-load']) await notSeeTestId(c.page, id);
   await seeTestId(c.page, 'tool-cut');

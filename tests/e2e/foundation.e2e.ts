@@ -187,6 +187,14 @@ async function phoneJourney(browser: Browser, server: ServerProcess) {
   await seeText(page, 'editor@example.com');
   await seeText(page, 'viewer@example.com');
   await screenshot(page, 'phone-larkspur-owner');
+  // The sheet's editor names it as the list does (its drawing was seeded from a fixture with a name of its own).
+  await txt(page, 'Building distribution').click();
+  const phoneTitle = await (await seeTestId(page, 'editor-sheet-name')).textContent();
+  assert(phoneTitle === 'Building distribution', `the editor's top bar names the sheet ${phoneTitle}`);
+  await seeTestId(page, 'link-connected');
+  await screenshot(page, 'phone-editor-top-bar');
+  await el(page, 'editor-back').click();
+  await seeTestId(page, 'project-detail');
   await signOut(page);
 
   assert(problems.length === 0, `the browser reported problems:\n${problems.join('\n')}`);
@@ -242,6 +250,10 @@ async function wideJourney(browser: Browser, server: ServerProcess) {
   assert((await byPrefix(page, 'delete-sheet-').count()) === 0, 'a viewer should see no delete buttons');
   await screenshot(page, 'wide-project-viewer');
   await txt(page, 'Farm service, 120/240 V').click();
+  const wideTitle = await (await seeTestId(page, 'editor-sheet-name')).textContent();
+  assert(wideTitle === 'Farm service, 120/240 V', `the editor's top bar names the sheet ${wideTitle}`);
+  await seeTestId(page, 'link-connected');
+  await screenshot(page, 'wide-editor-top-bar');
   await el(page, 'editor-about').click();
   await seeTestId(page, 'sheet-detail');
   await seeText(page, 'Rosa Almeida');

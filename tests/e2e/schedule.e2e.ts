@@ -114,7 +114,8 @@ runBrowserTest('schedule', async (browser, server) => {
   await screenshot(page, 'sheet-import-confirm-wide');
   await el(page, 'sheet-import-confirm-confirm').click();
   const imported = await until('the imported sheet in the room', () => documentOf(owner, blank), (d) => Object.keys(d.elements ?? {}).length === Object.keys(farm.elements).length);
-  assert(imported.name === 'Hollis farm', `imported name ${imported.name}`);
+  // The sheet keeps its name in the list: the file's own name ("Hollis farm") is not taken.
+  assert(imported.name === 'Imported farm', `imported name ${imported.name}`);
   assert(imported.whatIfs['barn-ground-fault'], 'the fault what-if did not come along');
   await page.waitForFunction(() => document.querySelectorAll('[data-testid^="sym-"]').length > 10, undefined, { timeout: 15_000 });
   await screenshot(page, 'sheet-imported-wide');

@@ -136,6 +136,9 @@ async function run(browser: Browser, server: ServerProcess) {
   assert(lookLabel?.includes('Look'), `the visitor's first tool reads ${lookLabel}`);
   const caseLine = await (await seeTestId(visitor.page, 'editor-case')).textContent();
   assert(caseLine?.startsWith('View only'), `the visitor's case line reads ${caseLine}`);
+  // The top bar names the sheet as its project's list does (not by the name inside its drawing).
+  const visitorTitle = await (await seeTestId(visitor.page, 'editor-sheet-name')).textContent();
+  assert(visitorTitle === FARM, `the visitor's top bar names the sheet ${visitorTitle}`);
   await seeTestId(visitor.page, 'tool-pins');
   // It is live: the editor's next change reaches the visitor without a reload.
   await renameOnPhone(editor, editorTouch, 'office', 'Office and router');
@@ -150,6 +153,8 @@ async function run(browser: Browser, server: ServerProcess) {
   await seeTestId(wideVisitor.page, 'tool-pin');
   assert((await wideVisitor.page.getByTestId('palette').count()) === 0, 'the wide visitor should have no palette');
   await seeElementNamed(wideVisitor.page, 'office', 'Office and router');
+  const wideTitle = await el(wideVisitor.page, 'editor-sheet-name').textContent();
+  assert(wideTitle === FARM, `the wide visitor's top bar names the sheet ${wideTitle}`);
   await screenshot(wideVisitor.page, 'sharing-wide-visitor-sheet');
   // The sheet's what-ifs can be looked at; showing one is this browser's own business.
   await wideVisitor.page.locator('[data-testid^="case-"]:not([data-testid="case-list"])').filter({ hasText: 'Open neutral in the service drop' }).filter({ visible: true }).first().click();

@@ -92,6 +92,50 @@ describe('a viewer', () => {
     viewer.destroy();
   });
 
+  it('is not logged for the sync reply every reader sends, on joining and on coming back, but a real write is', async () => {
+    const readOnlyLines = (from: number) => f.server.logs.slice(from).filter((l) => /dropped an update from read-only/.test(l));
+    /**
+     * Once the owner sees this cursor from `c`, the server has read everything `c` sent before it. It is published
+     * until seen: after a reconnect the room holds a higher awareness clock for `c` (its removal) than `c` sends.
+     */
+    const marker = async (c: ReturnType<typeof connectSheet>, x: number) => {
+      const seen = () => (owner.provider.awareness.getStates().get(c.doc.clientID) as any)?.cursor?.x === x;
+      for (let i = 0; i < 100 && !seen(); i++) {
+        c.provider.awareness.setLocalStateField('cursor', { x, y: i });
+        await new Promise((r) => setTimeout(r, 100));
+      }
+      expect(seen(), `marker ${x}`).toBe(true);
+    };
+    const from = f.server.logs.length;
+    const owner = connectSheet(f.owner, f.sheetId);
+    await owner.synced();
+    const viewer = connectSheet(f.viewer, f.sheetId);
+    await viewer.synced();
+    await marker(viewer, 101);
+    expect(readOnlyLines(from)).toEqual([]);
+
+    // Something deleted that the viewer saw: coming back, its reply carries that delete set (the room's own).
+    owner.doc.getMap('elements').set('short-lived', 1);
+    owner.doc.getMap('elements').delete('short-lived');
+    owner.doc.getMap('elements').set('after-delete', 1);
+    await eventually(() => viewer.doc.getMap('elements').get('after-delete') === 1, 'the owner’s edits at the viewer');
+    expect(Y.decodeUpdate(Y.encodeStateAsUpdate(viewer.doc, Y.encodeStateVector(viewer.doc))).ds.clients.size).toBeGreaterThan(0);
+    viewer.provider.disconnect();
+    await eventually(() => !viewer.provider.wsconnected, 'the viewer gone');
+    viewer.provider.connect();
+    await viewer.synced();
+    await marker(viewer, 102);
+    expect(readOnlyLines(from)).toEqual([]);
+
+    // A reader's own edit is a write attempt: dropped and logged as before.
+    viewer.doc.getMap('elements').set('viewer-write', 1);
+    await marker(viewer, 103);
+    expect(readOnlyLines(from)).toHaveLength(1);
+    expect(owner.doc.getMap('elements').has('viewer-write')).toBe(false);
+    owner.destroy();
+    viewer.destroy();
+  });
+
   it('cannot claim another name or move someone else’s cursor through awareness', async () => {
     const owner = connectSheet(f.owner, f.sheetId);
     const viewer = connectSheet(f.viewer, f.sheetId);

@@ -47,7 +47,7 @@ describe('the JSON view', () => {
     expect(put.status, JSON.stringify(put.body)).toBe(200);
     await eventually(() => editor.doc.getMap('elements').has('lamp'), 'import at the editor');
     const view = await f.viewer.get(`/api/sheets/${f.sheetId}/document`);
-    expect(view.body).toEqual(docToJson(editor.doc));
+    expect(view.body).toEqual(docToJson(editor.doc, 'Service'));
     const valid = validateSheet(view.body);
     expect(valid.ok).toBe(true);
     expect(view.body.elements.lamp.kw).toBe(1.2);
@@ -108,7 +108,7 @@ describe('old format versions', () => {
     const view = await f.owner.get(`/api/sheets/${sheetId}/document`);
     expect(view.status).toBe(200);
     expect(view.body.formatVersion).toBe(1);
-    expect(view.body.name).toBe('Draft barn feed');
+    expect(view.body.name).toBe('Old'); // the sheet list's name: the old document's own title is not kept
     expect(view.body.elements.barn).toMatchObject({ kind: 'bus', role: 'service', phaseC: false });
     expect(view.body.connections.w1.to).toEqual({ elementId: 'barn', terminal: 'bars' });
     expect(view.body.items).toBeUndefined();

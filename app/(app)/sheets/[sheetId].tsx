@@ -84,7 +84,7 @@ export default function SheetScreen() {
         isPhone={isPhone}
         topBar={
           <TopBar
-            sheetName={view.snapshot.name || found.sheet.name}
+            sheetName={found.sheet.name}
             caseLabel={view.caseLabel}
             readOnly={!view.editable}
             crew={view.crew}

@@ -39,9 +39,7 @@ export function documentsRouter(db: Database, rooms: RoomRegistry): Router {
   r.get('/:sheetId/document', validate(bySheet), async (_req, res) => {
     const { sheetId } = valid(res, bySheet).params;
     const { sheet } = await requireSheetRole(db, sheetId, currentUser(res).id, 'viewer');
-    const json = await rooms.withRoom(sheetId, async (room) => docToJson(room.doc));
-    if (!json.name) json.name = sheet.name;
-    res.json(json);
+    res.json(await rooms.withRoom(sheetId, async (room) => docToJson(room.doc, sheet.name)));
   });
 
   r.put('/:sheetId/document', validate(bySheet), async (req, res) => {

@@ -47,8 +47,8 @@ export function viewRouter(db: Database, rooms: RoomRegistry): Router {
 
   r.get('/document', async (req, res) => {
     const a = await linkAccess(db, req, res);
-    const json = await rooms.withRoom(a.sheetId, async (room) => docToJson(room.doc));
-    res.json(json);
+    const [row] = await db.select({ sheetName: sheetTable.name }).from(sheetTable).where(eq(sheetTable.id, a.sheetId));
+    res.json(await rooms.withRoom(a.sheetId, async (room) => docToJson(room.doc, row?.sheetName ?? '')));
   });
 
   return r;
