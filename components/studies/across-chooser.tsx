@@ -18,7 +18,7 @@ export interface AcrossChooserProps {
 export function AcrossChooser({ groups, chosen, at, onChoose, testID }: AcrossChooserProps) {
   const { color } = useTheme();
   return (
-    <View style={styles.groups} testID={testID} accessibilityRole="radiogroup" accessibilityLabel={`What the meter was across at ${at}`}>
+    <View style={styles.groups} testID={testID} role="radiogroup" aria-label={`What the meter was across at ${at}`}>
       {groups.map((g) => (
         <View key={g.kind} style={styles.group}>
           <Text variant="caption" tone="muted">
@@ -31,9 +31,9 @@ export function AcrossChooser({ groups, chosen, at, onChoose, testID }: AcrossCh
                 <Pressable
                   key={c.key}
                   onPress={() => (on ? undefined : onChoose(c.key))}
-                  accessibilityRole="radio"
-                  accessibilityState={{ checked: on }}
-                  accessibilityLabel={`${at} ${c.label}`}
+                  role="radio"
+                  aria-checked={on}
+                  aria-label={`${at} ${c.label}`}
                   testID={`${testID}-${c.key}`}
                   style={({ pressed }) => [styles.chip, { borderColor: on ? color.primary : color.lineStrong, backgroundColor: on ? color.primary : pressed ? color.raised : color.surface }]}
                 >

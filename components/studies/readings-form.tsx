@@ -179,9 +179,9 @@ function ReadingItem({ row, wide, open, onOpen, onVolts, onRemove, onAcross }: R
     <View style={styles.gap}>
       <Pressable
         onPress={() => onOpen(!open)}
-        accessibilityRole="button"
-        accessibilityState={{ expanded: open }}
-        accessibilityLabel={`${open ? 'Close' : 'Change'} the ${what} of the reading at ${entry.where}`}
+        role="button"
+        aria-expanded={open}
+        aria-label={`${open ? 'Close' : 'Change'} the ${what} of the reading at ${entry.where}`}
         testID={`reading-across-toggle-${entry.id}`}
         style={({ pressed }) => [styles.toggle, { borderColor: color.line, backgroundColor: pressed ? color.raised : 'transparent' }]}
       >
