@@ -3,6 +3,7 @@ export { solveSheet, solveDocument, SheetSolver, type SolveOutcome, type SolveOp
 export type { SolveFailure, FailureCode } from './solve/solve-network';
 export type * from './results/types';
 export { buildNetwork } from './network/build-network';
+export { loadElementLabels } from './network/load';
 export type { LoadModel } from './solve/load-iteration';
 export { solveFault, prepareFaults, faultResult, faultCase, withTransformerTolerance, TRANSFORMER_IMPEDANCE_TOLERANCE, type FaultOutcome } from './faults/solve-fault';
 export { peakFactor, asymmetricalPeakAmperes } from './faults/peak-factor';

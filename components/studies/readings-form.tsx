@@ -1,24 +1,30 @@
 // The readings match: the voltages measured in the field, added by tapping a load or bus on the drawing and then
-// "Add a reading here", or pasted as CSV lines; then the ranked candidate causes in their groups (the readings
+// "Add a reading here" (then the two bars, or the load's element, the meter was across), or pasted as CSV lines; then the ranked candidate causes in their groups (the readings
 // cannot tell a group's members apart), how well the best fits and how sure the ranking is. The best is shown on
 // the drawing when the match answers; a tap shows another.
 import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { WhatIfChange } from '@/shared/sheet';
-import type { CsvProblem, ReadingEntry } from '@/editor/studies/readings-entry';
+import type { CsvProblem, ReadingRow } from '@/editor/studies/readings-entry';
 import type { MatchSection } from '@/editor/studies/studies-view';
 import { radius, space, touchTargetMin } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
 import { Button, IconButton } from '../ui/button';
+import { Icon } from '../ui/icon';
 import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
+import { AcrossChooser } from './across-chooser';
 import { StandingBadge } from './standing-badge';
 
 export interface ReadingsFormProps {
-  readings: ReadingEntry[];
+  /** Cards stack the bars under each reading (a phone); a table puts them beside it. */
+  layout: 'cards' | 'table';
+  readings: ReadingRow[];
   selected: { id: string; name: string } | null;
   match: MatchSection;
-  onAddAt: (elementId: string) => void;
+  /** The new entry's id: its bars open for choosing. */
+  onAddAt: (elementId: string) => string | null;
+  onAcross: (id: string, key: string) => void;
   onVolts: (id: string, text: string) => void;
   onRemove: (id: string) => void;
   onPaste: (text: string) => CsvProblem[];
@@ -38,30 +44,27 @@ export function ReadingsForm(p: ReadingsFormProps) {
   const [csv, setCsv] = useState('');
   const [csvProblems, setCsvProblems] = useState<CsvProblem[]>([]);
   const [runProblems, setRunProblems] = useState<string[]>([]);
+  // The one reading whose bars are open for choosing (the newest, until another is opened).
+  const [openId, setOpenId] = useState<string | null>(null);
   const r = p.match.result;
   return (
     <View style={styles.gap} testID="readings-form">
       <Text variant="small" tone="muted">
-        Tap a load or a bus on the drawing, then add a reading there; or paste lines of “where, volts[, across]”.
+        Tap a load or a bus on the drawing, add a reading there and choose what the meter was across; or paste lines of “where, volts[, across]”.
       </Text>
       <Button
         label={p.selected ? `Add a reading at ${p.selected.name}` : 'Tap a load or bus on the drawing first'}
         icon="plus"
         variant="secondary"
         disabled={!p.selected}
-        onPress={() => p.selected && p.onAddAt(p.selected.id)}
+        onPress={() => {
+          const id = p.selected ? p.onAddAt(p.selected.id) : null;
+          if (id) setOpenId(id);
+        }}
         testID="reading-add"
       />
-      {p.readings.map((e) => (
-        <View key={e.id} style={styles.reading} testID={`reading-${e.id}`}>
-          <Text variant="small" style={styles.flex} numberOfLines={2}>
-            {e.where}
-          </Text>
-          <View style={styles.volts}>
-            <TextField label="Volts" value={e.voltsText} onChangeText={(t) => p.onVolts(e.id, t)} keyboardType="decimal-pad" placeholder="e.g. 121.4" testID={`reading-volts-${e.id}`} />
-          </View>
-          <IconButton icon="x" label={`Remove the reading at ${e.where}`} onPress={() => p.onRemove(e.id)} />
-        </View>
+      {p.readings.map((row) => (
+        <ReadingItem key={row.entry.id} row={row} wide={p.layout === 'table'} open={openId === row.entry.id} onOpen={(on) => setOpenId(on ? row.entry.id : null)} onVolts={p.onVolts} onRemove={p.onRemove} onAcross={p.onAcross} />
       ))}
       <TextField
         label="Or paste CSV"
@@ -157,11 +160,73 @@ export function ReadingsForm(p: ReadingsFormProps) {
   );
 }
 
+interface ReadingItemProps {
+  row: ReadingRow;
+  wide: boolean;
+  open: boolean;
+  onOpen: (open: boolean) => void;
+  onVolts: (id: string, text: string) => void;
+  onRemove: (id: string) => void;
+  onAcross: (id: string, key: string) => void;
+}
+
+function ReadingItem({ row, wide, open, onOpen, onVolts, onRemove, onAcross }: ReadingItemProps) {
+  const { color } = useTheme();
+  const { entry, at, across, chosen, problem } = row;
+  const chosenLabel = across.flatMap((g) => g.choices).find((c) => c.key === chosen)?.label ?? '—';
+  const what = entry.point.kind === 'bus' ? 'bars' : 'element';
+  const chooser = across.length ? (
+    <View style={styles.gap}>
+      <Pressable
+        onPress={() => onOpen(!open)}
+        role="button"
+        aria-expanded={open}
+        aria-label={`${open ? 'Close' : 'Change'} the ${what} of the reading at ${entry.where}`}
+        testID={`reading-across-toggle-${entry.id}`}
+        style={({ pressed }) => [styles.toggle, { borderColor: color.line, backgroundColor: pressed ? color.raised : 'transparent' }]}
+      >
+        <Text variant="small" tone="muted">
+          Across
+        </Text>
+        <Text variant="label">{chosenLabel}</Text>
+        <Icon name={open ? 'chevron-up' : 'chevron-down'} size={16} color={color.inkMuted} />
+      </Pressable>
+      {open ? <AcrossChooser groups={across} chosen={chosen} at={at} onChoose={(key) => onAcross(entry.id, key)} testID={`reading-across-${entry.id}`} /> : null}
+    </View>
+  ) : null;
+  return (
+    <View style={[styles.reading, { borderColor: open ? color.primary : color.line }]} testID={`reading-${entry.id}`}>
+      <View style={[styles.readingTop, wide && styles.readingWide]}>
+        <View style={[styles.flex, styles.gapXs]}>
+          <Text variant="small" numberOfLines={2} testID={`reading-where-${entry.id}`}>
+            {entry.where}
+          </Text>
+          {problem ? (
+            <Text variant="small" tone="danger" role="alert" testID={`reading-problem-${entry.id}`}>
+              {problem}
+            </Text>
+          ) : null}
+          {wide ? chooser : null}
+        </View>
+        <View style={styles.volts}>
+          <TextField label="Volts" value={entry.voltsText} onChangeText={(t) => onVolts(entry.id, t)} keyboardType="decimal-pad" placeholder="e.g. 121.4" testID={`reading-volts-${entry.id}`} />
+        </View>
+        <IconButton icon="x" label={`Remove the reading at ${entry.where}`} onPress={() => onRemove(entry.id)} testID={`reading-remove-${entry.id}`} />
+      </View>
+      {wide ? null : chooser}
+    </View>
+  );
+}
+
 const styles = StyleSheet.create({
   flex: { flex: 1 },
   gap: { gap: space.sm },
   row: { flexDirection: 'row' },
-  reading: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  gapXs: { gap: space.xs },
+  reading: { borderWidth: 1, borderRadius: radius.md, padding: space.sm, gap: space.sm },
+  readingTop: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  readingWide: { alignItems: 'flex-start' },
+  toggle: { flexDirection: 'row', alignItems: 'center', alignSelf: 'flex-start', gap: space.xs, minHeight: touchTargetMin, borderWidth: 1, borderRadius: radius.md, paddingHorizontal: space.sm },
   volts: { width: 110 },
   alert: { borderWidth: 1, borderRadius: radius.md, padding: space.md, gap: space.xs },
   group: { borderWidth: 1, borderRadius: radius.md, padding: space.sm, gap: space.xs },

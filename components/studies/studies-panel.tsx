@@ -235,17 +235,19 @@ function SweepTab({ view, actions: a, layout }: StudiesPanelProps) {
   );
 }
 
-function ReadingsTab({ view, actions: a, selected }: StudiesPanelProps) {
+function ReadingsTab({ view, actions: a, selected, layout }: StudiesPanelProps) {
   const m = view.match;
   return (
     <View style={styles.gap}>
       {m.progress ? <Progress text={m.progress.text} fraction={m.progress.fraction} onCancel={() => a.onCancel('match')} testID="match-progress" /> : null}
       {m.shownDescription ? <ShownCase text={m.shownDescription} onClear={a.onClearCase} testID="match-shown" /> : null}
       <ReadingsForm
+        layout={layout}
         readings={view.readings}
         selected={selected}
         match={m}
         onAddAt={a.onAddReadingAt}
+        onAcross={a.onReadingAcross}
         onVolts={a.onReadingVolts}
         onRemove={a.onRemoveReading}
         onPaste={a.onPasteReadings}

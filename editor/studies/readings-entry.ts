@@ -1,8 +1,9 @@
 // The readings a person gives the readings match: one entry per measured point (a load, or two bars of a bus),
-// added by tapping the element on the drawing or pasted as CSV. Checked here with a clear word per bad line
-// before anything is run; nothing is half-read.
-import type { ConductorId } from '../../shared/sheet';
+// added by tapping the element on the drawing (then choosing the bars or load element it is across) or pasted as
+// CSV. Checked here with a clear word per bad line before anything is run; nothing is half-read.
+import type { ConductorId, Sheet } from '../../shared/sheet';
 import type { Reading, ReadingPoint } from '../../solver';
+import { acrossAt, acrossKey, acrossLabel, defaultPointAt, findAcross, type AcrossGroup } from './reading-across';
 
 export interface ReadingEntry {
   /** Stable within the list (for keys and removal). */
@@ -22,16 +23,55 @@ export interface NamedElement {
 
 const CONDUCTORS: readonly string[] = ['A', 'B', 'C', 'N', 'PE'];
 
-/** The point of a reading at an element: a load across its first element, a bus phase A to neutral (or to earth). */
-export function pointAt(element: NamedElement, busBars?: { neutral: boolean }): ReadingPoint | null {
-  if (element.kind === 'load') return { kind: 'load', loadId: element.id };
-  if (element.kind === 'bus') return { kind: 'bus', busId: element.id, from: 'A', to: busBars?.neutral === false ? 'earth' : 'N' };
-  return null;
-}
-
 export function pointWords(point: ReadingPoint, nameOf: (id: string) => string): string {
   if (point.kind === 'load') return `${nameOf(point.loadId)}${point.element ? ` ${point.element}` : ''}`;
   return `${nameOf(point.busId)} ${point.from}–${point.to === 'earth' ? 'earth' : point.to}`;
+}
+
+/** The entry across another pair of bars (or load element): its point and its words. */
+export function withPoint(entry: ReadingEntry, point: ReadingPoint, nameOf: (id: string) => string): ReadingEntry {
+  return { ...entry, point, where: pointWords(point, nameOf) };
+}
+
+/** An entry as the form shows it: what it may be across at its element now, which of those it is, or why none. */
+export interface ReadingRow {
+  entry: ReadingEntry;
+  /** The element's name, for the chips' spoken labels ("Apartment 4"). */
+  at: string;
+  /** Empty for a load of one element (nothing to choose). */
+  across: AcrossGroup[];
+  /** The chosen key among `across` ("B-N", "A–B"). */
+  chosen: string;
+  /** The element no longer has the chosen bars (or is gone): say so beside the entry. */
+  problem: string | null;
+}
+
+const elementIdOf = (point: ReadingPoint): string => (point.kind === 'bus' ? point.busId : point.loadId);
+
+export function readingRows(entries: readonly ReadingEntry[], elements: Sheet['elements'] | null): ReadingRow[] {
+  return entries.map((entry) => {
+    const id = elementIdOf(entry.point);
+    const element = elements?.[id];
+    if (!elements) return { entry, at: id, across: [], chosen: acrossKey(entry.point), problem: null };
+    if (!element || element.kind !== entry.point.kind) return { entry, at: id, across: [], chosen: '', problem: `no ${entry.point.kind} "${id}" on the sheet now` };
+    const at = element.name || id;
+    const across = acrossAt(element);
+    // A load's reading without a named element is across its first.
+    const point = entry.point.kind === 'load' && entry.point.element === undefined ? defaultPointAt(element) ?? entry.point : entry.point;
+    const found = across.length === 0 || findAcross(across, point);
+    const words = entry.point.kind === 'bus' ? `${at} has no ${acrossLabel(entry.point)} now: choose the bars again` : `${at} has no element ${acrossKey(point)} now: choose again`;
+    return { entry, at, across, chosen: acrossKey(point), problem: found ? null : words };
+  });
+}
+
+/** The entries with one put across another choice its own element offers (anything else changes nothing). */
+export function chooseAcross(entries: readonly ReadingEntry[], id: string, key: string, elements: Sheet['elements'], nameOf: (id: string) => string): ReadingEntry[] {
+  return entries.map((e) => {
+    if (e.id !== id) return e;
+    const element = elements[elementIdOf(e.point)];
+    const choice = element ? acrossAt(element).flatMap((g) => g.choices).find((c) => c.key === key) : undefined;
+    return choice ? withPoint(e, choice.point, nameOf) : e;
+  });
 }
 
 export interface CsvProblem {

@@ -6,12 +6,15 @@ import type { Sheet, WhatIfChange } from '../../shared/sheet';
 import { querySweep, sweepView, type SweepRow, type SweepView } from './break-sweep-rows';
 import { faultStudyView, queryFaultCases, type FaultCaseRow, type FaultStudyView } from './fault-study-rows';
 import { loadingViewOf, queryConductors, type ConductorRow, type LoadingView } from './loading-rows';
+import { readingRows } from './readings-entry';
 import { profileLoads, type ProfileLoad } from './voltage-profile';
 import { shownFaultKey, shownOpeningKey, type RunState, type StudiesState } from './study-session';
 
 export interface StudiesViewInput {
   studies: StudiesState;
   sheet: Sheet | null;
+  /** The elements as the document has them now, solved or not (the bars a reading can be across). */
+  elements: Sheet['elements'] | null;
   base: SolveResult | null;
   active: SolveResult | null;
   trialChanges: readonly WhatIfChange[];
@@ -138,7 +141,7 @@ export function studiesView(input: StudiesViewInput) {
     } satisfies ProfileSection,
     queries: { fault: studies.faultQuery, sweep: studies.sweepQuery, loading: studies.loadingQuery },
     profileOrder: studies.profileOrder,
-    readings: studies.readings,
+    readings: readingRows(studies.readings, input.elements),
   };
 }
 

@@ -9,7 +9,8 @@ import type { SweepColumn, SweepRow } from './break-sweep-rows';
 import { caseMarks, revealViewport } from './case-marks';
 import type { DutyRow, FaultCaseColumn, FaultCaseRow } from './fault-study-rows';
 import type { LoadingColumn } from './loading-rows';
-import { parseReadingsCsv, pointAt, pointWords, toReadings, type CsvProblem, type ReadingEntry } from './readings-entry';
+import { defaultPointAt } from './reading-across';
+import { chooseAcross, parseReadingsCsv, pointWords, toReadings, type CsvProblem, type ReadingEntry } from './readings-entry';
 import type { StudyTab } from './study-session';
 import { useStudiesView } from './use-studies-view';
 import type { ProfileOrder } from './voltage-profile';
@@ -34,7 +35,10 @@ export interface StudiesActions {
   onLoadingText: (text: string) => void;
   onLoadingToggle: (column: 'status' | 'conductor', value: string) => void;
   onShowRun: (runId: string) => void;
-  onAddReadingAt: (elementId: string) => void;
+  /** Adds a reading at the element, across its default bars or element; the new entry's id (null if none). */
+  onAddReadingAt: (elementId: string) => string | null;
+  /** Puts a reading across another choice its element offers (a key of the row's `across`). */
+  onReadingAcross: (id: string, key: string) => void;
   onReadingVolts: (id: string, text: string) => void;
   onRemoveReading: (id: string) => void;
   /** Pasted CSV: the entries are replaced, or nothing changes and the problems come back. */
@@ -70,6 +74,8 @@ export function useStudiesPanel(handle: EditorHandle | null, view: EditorView, i
     const elements = () => [...(handle?.session.mirror.current.elements.values() ?? [])].map((e) => ({ id: e.id, name: String(e.name ?? ''), kind: String(e.kind) }));
     const nameOf = (id: string) => String(handle?.session.mirror.current.elements.get(id)?.name || id);
     const readings = () => s?.store.get().readings ?? [];
+    // The elements as validated, with their defaults filled in (a bus's bars).
+    const parsed = () => (handle ? handle.session.reader.read(handle.session.mirror.current).sheet.elements : {});
     return {
       onTab: (tab) => s?.setTab(tab),
       onRunFaults: () => s?.runFaultStudy(),
@@ -101,12 +107,14 @@ export function useStudiesPanel(handle: EditorHandle | null, view: EditorView, i
         reveal(runId);
       },
       onAddReadingAt: (elementId) => {
-        const e = elements().find((x) => x.id === elementId);
-        const point = e ? pointAt(e) : null;
-        if (!point) return;
+        const e = parsed()[elementId];
+        const point = e ? defaultPointAt(e) : null;
+        if (!point || !s) return null;
         const entry: ReadingEntry = { id: newId('reading'), point, where: pointWords(point, nameOf), voltsText: '' };
-        s?.setReadings([...readings(), entry]);
+        s.setReadings([...readings(), entry]);
+        return entry.id;
       },
+      onReadingAcross: (id, key) => s?.setReadings(chooseAcross(readings(), id, key, parsed(), nameOf)),
       onReadingVolts: (id, text) => s?.setReadings(readings().map((r) => (r.id === id ? { ...r, voltsText: text } : r))),
       onRemoveReading: (id) => s?.setReadings(readings().filter((r) => r.id !== id)),
       onPasteReadings: (text) => {

@@ -16,12 +16,13 @@ export function useStudiesView(handle: EditorHandle | null, view: EditorView) {
   const nameOf = useMemo(() => (id: string) => snapshot.elements.get(id)?.name || id, [snapshot]);
   const kindOf = useMemo(() => (id: string) => snapshot.elements.get(id)?.kind as string | undefined, [snapshot]);
   // The sheet the latest solve answered for (the loading study reads it beside the result).
-  const sheet = useMemo(() => (handle && results.base ? handle.session.reader.read(snapshot).sheet : null), [handle, results.base, snapshot]);
+  const read = useMemo(() => (handle ? handle.session.reader.read(snapshot).sheet : null), [handle, snapshot]);
+  const sheet = results.base ? read : null;
   // Names are read when the study answers; a rename after it shows once the study is run again (it is stale then).
   // eslint-disable-next-line react-hooks/exhaustive-deps
   const faultView = useMemo(() => makeFaultView(studies, nameOf, kindOf), [studies.fault.result, studies.fault.finishedAt]);
   return useMemo(
-    () => studiesView({ studies, sheet, base: results.base, active: results.active, trialChanges: ui.trialChanges, caseLabel, faultView }),
-    [studies, sheet, results.base, results.active, ui.trialChanges, caseLabel, faultView],
+    () => studiesView({ studies, sheet, elements: read?.elements ?? null, base: results.base, active: results.active, trialChanges: ui.trialChanges, caseLabel, faultView }),
+    [studies, sheet, read, results.base, results.active, ui.trialChanges, caseLabel, faultView],
   );
 }

@@ -55,6 +55,11 @@ function partSpecs(load: LoadElement): PartSpec[] {
   }
 }
 
+/** The load's elements by label ("A–N"; "A–B", "B–C", "C–A"), as the results and readings name them. */
+export function loadElementLabels(load: LoadElement): string[] {
+  return partSpecs(load).map((spec) => spec.label);
+}
+
 /** Complex power of one element at rated voltage, VA, before any what-if scaling. */
 export function partRatedVa(load: LoadElement, part: PartSpec, parts: number): Complex {
   const pf = load.phasePowerFactor?.[part.phase] ?? load.powerFactor;

@@ -1,10 +1,11 @@
 // The studies in a real browser on the demo building: open the sheet, run the fault study (in the study worker),
 // sort by current, tap the largest case and see that fault on the drawing (its mark, the bus's voltages falling),
 // filter, see the voltage profile of the base case beside the fault, run the break sweep and show its worst
-// opening, match two pasted readings, and see the loading; on a phone (cards) and a wide screen (table).
+// opening, match two pasted readings, tap a bus on the drawing and add a reading across bars chosen there (B–N of
+// an apartment's 120/240 panel), match again, and see the loading; on a phone (cards) and a wide screen (table).
 import type { Browser, Page } from 'playwright-core';
-import { assert, byPrefix, el, log, PHONE, runBrowserTest, screenshot, seeTestId, WIDE, type ServerProcess } from './harness';
-import { apiAs, demoProjectId, openAs } from './editor-support';
+import { assert, assertTouchTarget, byPrefix, el, log, PHONE, runBrowserTest, screenshot, seeTestId, WIDE, type ServerProcess } from './harness';
+import { apiAs, demoProjectId, documentOf, openAs, toScreen, viewTransform, type Touch } from './editor-support';
 import { sheetIdByName } from './schedule-steps';
 
 /** A value of the case on show, read from the editor's own results through the ?probe handle (tags are hidden when zoomed out). */
@@ -24,6 +25,34 @@ async function waitForValue(page: Page, key: string, check: (v: number) => boole
     await page.waitForTimeout(100);
   }
   throw new Error(`${key}: expected ${what}, last read ${last}`);
+}
+
+/**
+ * Taps an element on the drawing with a finger, a little right of its place (a bus's middle is where its feeder
+ * lands); first, while that point is out of sight or under a panel, two fingers drag the drawing (a pan, which
+ * cannot move an element) a step at a time toward the top of the canvas.
+ */
+async function tapOnDrawing(page: Page, touch: Touch, world: { x: number; y: number }, elementId: string) {
+  for (let step = 0; step < 12; step++) {
+    const at = toScreen(await viewTransform(page), world);
+    const clear = await page.evaluate(({ x, y }) => {
+      const hit = document.elementFromPoint(x, y);
+      return !!hit?.closest('[data-testid="sheet-canvas"]') && !hit.closest('[data-testid="panel-studies"]');
+    }, at);
+    if (clear) {
+      await touch.tap(at);
+      await page.locator(`[data-testid="selected-${elementId}"]`).first().waitFor({ state: 'attached', timeout: 5000 });
+      return;
+    }
+    const canvas = await el(page, 'sheet-canvas').boundingBox();
+    assert(canvas, 'no canvas on the page');
+    // Clear of the legend at the top and of a phone's sliding panel over the lower part of the canvas.
+    const target = { x: canvas.x + canvas.width / 2, y: canvas.y + Math.min(canvas.height, page.viewportSize()!.height * 0.45) * 0.6 };
+    const clamp = (v: number) => Math.max(-120, Math.min(120, v));
+    const shift = { x: clamp(target.x - at.x), y: clamp(target.y - at.y) };
+    await touch.pinch({ x: target.x - shift.x, y: target.y - shift.y }, 60, 60, shift);
+  }
+  throw new Error(`${elementId} never came into sight to be tapped`);
 }
 
 async function demoSheetId(server: ServerProcess) {
@@ -46,7 +75,7 @@ async function shownCurrents(page: Page): Promise<{ key: string; ka: number }[]>
 }
 
 async function journey(browser: Browser, server: ServerProcess, sheetId: string, size: { width: number; height: number }, name: 'phone' | 'wide') {
-  const { page, context, problems } = await openAs(browser, server, 'owner@example.com', size);
+  const { page, context, problems, touch, api } = await openAs(browser, server, 'owner@example.com', size);
   await page.goto(`${server.url}/sheets/${sheetId}?probe`);
   // The base case on the drawing: the service bus near 120 V.
   const baseVolts = await waitForValue(page, 'service:ln-A', (v) => v > 100 && v < 130, 'about 120 V', 20_000);
@@ -132,6 +161,47 @@ async function journey(browser: Browser, server: ServerProcess, sheetId: string,
   await el(page, 'match-run').click();
   await seeTestId(page, 'match-result');
   await seeTestId(page, 'match-shown');
+  const fitBefore = (await el(page, 'match-fit').textContent()) ?? '';
+
+  // A reading tapped on the drawing: Apartment 4's panel (120/240: bars A, B, N and PE), across B–N.
+  const apt4 = (await documentOf(api, sheetId)).elements['apt-4'] as { x: number; y: number };
+  await tapOnDrawing(page, touch, { x: apt4.x + 60, y: apt4.y }, 'apt-4');
+  const add = el(page, 'reading-add');
+  await page.waitForFunction(() => /Add a reading at Apartment 4$/.test(document.querySelector('[data-testid="reading-add"]')?.textContent ?? ''), undefined, { timeout: 10_000 });
+  await add.click();
+  const wheres = byPrefix(page, 'reading-where-');
+  assert((await wheres.count()) === 3, `${await wheres.count()} readings listed after adding one at Apartment 4`);
+  const id = ((await wheres.nth(2).getAttribute('data-testid')) ?? '').replace('reading-where-', '');
+  assert((await wheres.nth(2).textContent()) === 'Apartment 4 A–N', `the new reading reads "${await wheres.nth(2).textContent()}" (expected A–N by default)`);
+  // Its bars are open for choosing: only the pairs the panel has (no C), each chip finger-sized, A–N chosen.
+  const chip = (key: string) => el(page, `reading-across-${id}-${key}`);
+  for (const key of ['A-N', 'B-N', 'A-B', 'A-PE', 'N-PE', 'N-earth']) assert((await chip(key).count()) === 1, `no ${key} chip for Apartment 4`);
+  for (const key of ['C-N', 'B-C', 'C-earth']) assert((await chip(key).count()) === 0, `a ${key} chip is offered on a panel without a C bar`);
+  assert((await chip('A-N').getAttribute('aria-checked')) === 'true', 'A–N is not the chosen pair of a new reading at a panel with a neutral');
+  await assertTouchTarget(chip('B-N'), 'the B–N chip');
+  await assertTouchTarget(el(page, `reading-across-toggle-${id}`), 'the bars toggle');
+  await chip('B-N').click();
+  await page.waitForFunction((i) => document.querySelector(`[data-testid="reading-where-${i}"]`)?.textContent === 'Apartment 4 B–N', id, { timeout: 5000 });
+  assert((await chip('B-N').getAttribute('aria-checked')) === 'true', 'B–N is not shown chosen after the tap');
+  await el(page, `reading-volts-${id}`).fill('19.5');
+  await screenshot(page, `studies-${name}-readings-bars`);
+  // Closed, the entry still says what it is across.
+  await el(page, `reading-across-toggle-${id}`).click();
+  assert((await chip('B-N').count()) === 0, 'the chips stay open after closing the bars');
+  const toggle = (await el(page, `reading-across-toggle-${id}`).textContent()) ?? '';
+  assert(/Across\s*B–N/.test(toggle), `the closed bars read "${toggle}"`);
+
+  // The match with the third reading answers with new figures.
+  await el(page, 'match-run').click();
+  await page.waitForFunction((before) => {
+    const fit = document.querySelector('[data-testid="match-fit"]')?.textContent ?? '';
+    return !!fit && fit !== before && !!document.querySelector('[data-testid="match-run"]');
+  }, fitBefore, { timeout: 30_000 });
+  assert((await el(page, 'match-error').count()) === 0, `the match failed: ${await el(page, 'match-error').textContent().catch(() => '')}`);
+  assert((await el(page, 'readings-problems').count()) === 0, `the entries were refused: ${await el(page, 'readings-problems').textContent().catch(() => '')}`);
+  await seeTestId(page, 'match-group-0');
+  log(`${name}: with Apartment 4 B–N 19.5 V: ${(await el(page, 'match-fit').textContent()) ?? ''}`);
+  await el(page, 'match-fit').scrollIntoViewIfNeeded();
   await screenshot(page, `studies-${name}-readings`);
 
   // The loading of the case on show.
