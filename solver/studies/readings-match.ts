@@ -6,17 +6,22 @@
 import type { ConductorId, Sheet, WhatIfChange } from '../../shared/sheet';
 import { buildNetwork, type BuiltNetwork } from '../network/build-network';
 import { runAdmittance } from '../network/run';
-import { EARTH_PIN, pinKey, type RunLayout } from '../network/types';
+import { EARTH_PIN, pinKey, type LoadPart, type RunLayout } from '../network/types';
 import { analyse } from '../sparse/symbolic';
 import { factor, type NumericLu } from '../sparse/lu';
 import { solve } from '../sparse/solve';
 import { downstreamElements } from '../solve/downstream';
 import { solveBuiltNetwork, type Solution } from '../solve/solve-network';
-import type { ComplexVector, Factorization } from '../linear-system';
+import type { ComplexCsc, ComplexVector, Factorization } from '../linear-system';
 import { NO_MODIFICATIONS, connectionConductorKey, runConductorKey, type Modifications } from '../network/modifications';
 import { withoutExplicitZeros } from './opening-solver';
+import { LoadLawTrials, scaledPart, type TrialOutcome } from './load-law-trial';
+import { mergeTies } from '../solve/classes';
+import { findParts } from '../solve/parts';
+import { assemble } from '../solve/assemble';
+import type { PinVoltages } from '../solve/load-iteration';
 import { runAsync, runSync, type SlicedStudy } from './run-study';
-import { prepareColumns, type Branch, type PreparedColumns, type ReadingRow } from './reading-model';
+import { branchBetween, prepareColumns, type Branch, type PreparedColumns, type ReadingRow } from './reading-model';
 import type { CandidateCause, CandidateGroup, MatchCandidate, Reading, ReadingsMatchOptions, ReadingsMatchResult, StudyLoadModel, StudyOutcome, StudyProgress } from './study-types';
 
 const DEFAULT_TOLERANCE_PERCENT = 1;
@@ -121,6 +126,8 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
   skipped = 0;
   unfittedLevels = 0;
   private refineQueue?: number[];
+  /** The base network's factors for the refit's trials, made on the first refit. */
+  private baseTrials?: LoadLawTrials;
   private readonly refineBest: number;
 
   constructor(
@@ -128,6 +135,8 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     private readonly network: BuiltNetwork,
     private readonly solution: Solution,
     private readonly lu: NumericLu,
+    /** The base matrix without its explicit zeros (what `lu` factors). */
+    private readonly matrix: ComplexCsc,
     private readonly x0: ComplexVector,
     private readonly factorization: Factorization | undefined,
     rows: ReadingRow[],
@@ -169,7 +178,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     const matrix = withoutExplicitZeros(system.matrix);
     const lu = factor(analyse(matrix), matrix);
     const x0 = solve(lu, system.rhsRe, system.rhsIm);
-    return { ok: true, value: new ReadingsMatcher(sheet, network, outcome.solution, lu, x0, outcome.factorization, rows, readings, options) };
+    return { ok: true, value: new ReadingsMatcher(sheet, network, outcome.solution, lu, matrix, x0, outcome.factorization, rows, readings, options) };
   }
 
   private listCandidates(): void {
@@ -269,27 +278,30 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     return mods;
   }
 
-  /** A fit again with the sheet's load laws: a fresh build and solve per trial, from the constant-impedance answer. */
+  /** A fit again with the sheet's load laws, from the constant-impedance answer. */
   private refine(f: Fitted): Fitted {
     const c = f.candidate;
     const out = new Float64Array(this.rows.length);
     let problem: string | undefined;
-    const trial = (ohms: number | 'open', level: number): number => {
+    const fresh = (ohms: number | 'open', level: number): number => {
       const network = buildNetwork(this.sheet, this.modsOf(c, ohms, level));
       const outcome = solveBuiltNetwork(network, this.sheet.settings, this.factorization);
       if (!outcome.ok) {
         problem = outcome.error.message;
         return Infinity;
       }
-      const v = outcome.solution.volts;
-      for (let r = 0; r < this.readings.length; r++) {
-        const pins = readingPins(this.sheet, network, this.readings[r]);
-        if (!pins) return Infinity;
-        const [p, q] = pins;
-        out[r] = Math.hypot(at(v.re, p) - at(v.re, q), at(v.im, p) - at(v.im, q));
-      }
-      return this.objective(out);
+      return this.readOut(network, outcome.solution.volts, out);
     };
+    const fast = this.options.refit === 'fresh-solves' ? undefined : this.lowRankTrial(c, f);
+    const trial = !fast
+      ? fresh
+      : (ohms: number | 'open', level: number): number => {
+          const r = fast(ohms, level);
+          if (r.outcome.ok) return this.readOut(r.network, r.outcome.volts, out);
+          if (r.outcome.fresh) return fresh(ohms, level);
+          problem = r.outcome.message;
+          return Infinity;
+        };
     const found = this.search(c, c.parts.length > 0, trial, REFINE_GRID, REFINE_STEPS, { level: f.level, ohms: f.ohms }, REFINE_ROUNDS);
     if (!found) return { ...f, refineProblem: problem ?? 'no trial solved with the sheet\'s load laws' };
     const opening = c.cause.kind === 'open-conductor' || c.cause.kind === 'open-connection';
@@ -297,18 +309,65 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     return this.fittedOf(c, found, out.slice(), 'sheet');
   }
 
-  private branchOf(cls: number): { cls: number; scale: number } {
-    return { cls, scale: cls >= 0 ? this.solution.system.scale[cls] : 0 };
+  /** The readings of a solved network into `out`, and their objective (Infinity when a reading has no pins). */
+  private readOut(network: BuiltNetwork, v: PinVoltages, out: Float64Array): number {
+    for (let r = 0; r < this.readings.length; r++) {
+      const pins = readingPins(this.sheet, network, this.readings[r]);
+      if (!pins) return Infinity;
+      const [p, q] = pins;
+      out[r] = Math.hypot(at(v.re, p) - at(v.re, q), at(v.im, p) - at(v.im, q));
+    }
+    return this.objective(out);
+  }
+
+  /**
+   * The refit's trials through one factorization (load-law-trial.ts): the base network's for a run conductor or no
+   * break; for a load's degraded connection, the network built once with the fitted resistance (the lug is a branch
+   * of its own there). Undefined for an opened connection: its load is cut off, one fresh solve settles it.
+   */
+  private lowRankTrial(c: Candidate, f: Fitted): ((ohms: number | 'open', level: number) => { network: BuiltNetwork; outcome: TrialOutcome }) | undefined {
+    const cause = c.cause;
+    const parts = new Set(c.parts);
+    const loadsAt = (loads: LoadPart[], level: number) => (level === 1 || parts.size === 0 ? loads : loads.map((p, k) => (parts.has(k) ? scaledPart(p, level) : p)));
+    if (cause.kind === 'open-connection') return undefined;
+    if (cause.kind === 'degrade-connection') {
+      const r0 = f.ohms;
+      if (!(r0 && r0 > 0)) return undefined;
+      const network = buildNetwork(this.sheet, this.modsOf(c, r0, 1));
+      const merged = mergeTies(network);
+      if (!merged.ok) return undefined;
+      const classes = merged.classes;
+      const system = assemble(network, classes, findParts(network, classes));
+      const lug = network.stamps.find((st) => st.kind === 'degraded-connection' && st.elementId === cause.connectionId);
+      const part = network.loads.findIndex((p) => p.loadId === cause.loadId);
+      if (!lug || part < 0 || c.parts.length !== 1) return undefined;
+      const trials = new LoadLawTrials(network, classes, system, this.sheet.settings);
+      const load = network.loads[part];
+      const columns = trials.columns([branchBetween(classes, system.scale, lug.pins[0], lug.pins[1]), branchBetween(classes, system.scale, load.p, load.q)]);
+      return (ohms, level) => {
+        const dRe = new Float64Array(4);
+        const dIm = new Float64Array(4);
+        if (ohms !== 'open') dRe[0] = 1 / ohms - 1 / r0;
+        dRe[3] = (level - 1) * load.y.re;
+        dIm[3] = (level - 1) * load.y.im;
+        const loads = level === 1 ? network.loads : network.loads.map((p, k) => (k === part ? scaledPart(p, level) : p));
+        return { network, outcome: ohms === 'open' ? { ok: false, message: 'opened', fresh: true } : trials.solve(columns, dRe, dIm, loads) };
+      };
+    }
+    this.baseTrials ??= new LoadLawTrials(this.network, this.solution.classes, this.solution.system, this.sheet.settings, { matrix: this.matrix, lu: this.lu });
+    const trials = this.baseTrials;
+    const { branches, runRows } = this.branches(c, c.parts);
+    const columns = trials.columns(branches);
+    const layout = c.run !== undefined ? this.network.runs[c.run] : undefined;
+    return (ohms, level) => {
+      const { dRe, dIm } = this.delta(layout, runRows, c.conductor, ohms, level, c.parts);
+      return { network: this.network, outcome: trials.solve(columns, dRe, dIm, loadsAt(this.network.loads, level)) };
+    };
   }
 
   /** The branches of a candidate: its run's conductors (all of them when coupled), then the affected load elements. */
   private branches(c: Candidate, parts: number[]): { branches: Branch[]; runRows: number[] } {
-    const { classOf, offsetRe, offsetIm } = this.solution.classes;
-    const make = (p: number, q: number): Branch => {
-      const a = this.branchOf(classOf[p]);
-      const b = this.branchOf(classOf[q]);
-      return { a: a.cls, b: b.cls, sa: a.scale, sb: b.scale, wRe: offsetRe[p] - offsetRe[q], wIm: offsetIm[p] - offsetIm[q] };
-    };
+    const make = (p: number, q: number): Branch => branchBetween(this.solution.classes, this.solution.system.scale, p, q);
     const branches: Branch[] = [];
     let runRows: number[] = [];
     if (c.run !== undefined) {
