@@ -21,6 +21,7 @@ import { findParts } from '../solve/parts';
 import { assemble } from '../solve/assemble';
 import type { PinVoltages } from '../solve/load-iteration';
 import { runAsync, runSync, type SlicedStudy } from './run-study';
+import { minimiseLogBrent, minimiseLogGolden, type LogMinimum } from './minimise-log';
 import { branchBetween, prepareColumns, type Branch, type PreparedColumns, type ReadingRow } from './reading-model';
 import type { CandidateCause, CandidateGroup, MatchCandidate, Reading, ReadingsMatchOptions, ReadingsMatchResult, StudyLoadModel, StudyOutcome, StudyProgress } from './study-types';
 
@@ -38,6 +39,9 @@ const REFINE_GRID = 7;
 const REFINE_STEPS = 14;
 /** Rounds of resistance-then-level for a degradation in the refinement. */
 const REFINE_ROUNDS = 2;
+/** Brent's stopping bracket in the refit (log units: 0.05 %), and its most trials after the grid. */
+const REFIT_TOLERANCE = 5e-4;
+const REFIT_MAX_TRIALS = 12;
 const at = (v: Float64Array, i: number): number => (i >= 0 ? v[i] : 0);
 
 const now = (): number => (typeof performance !== 'undefined' ? performance.now() : Date.now());
@@ -46,47 +50,17 @@ const conductorWord = (c: ConductorId): string => (c === 'N' ? 'neutral' : c ===
 type Failure = { ok: false; error: { code: 'not-supported'; message: string; elementIds: string[] } };
 const fail = (message: string, elementIds: string[] = []): Failure => ({ ok: false, error: { code: 'not-supported', message, elementIds } });
 
-/** Minimum of f over [lo, hi] on a log scale: a grid, then golden section around the best point. */
-function minimiseLog(f: (v: number) => number, lo: number, hi: number, grid = GRID, steps = GOLDEN_STEPS): { at: number; value: number } {
-  const a = Math.log(lo);
-  const b = Math.log(hi);
-  let best = 0;
-  let bestValue = Infinity;
-  const values: number[] = [];
-  for (let i = 0; i < grid; i++) {
-    const v = f(Math.exp(a + ((b - a) * i) / (grid - 1)));
-    values.push(v);
-    if (v < bestValue) {
-      bestValue = v;
-      best = i;
-    }
-  }
-  if (!Number.isFinite(bestValue)) return { at: Math.exp(a + ((b - a) * best) / (grid - 1)), value: Infinity };
-  let left = a + ((b - a) * Math.max(0, best - 1)) / (grid - 1);
-  let right = a + ((b - a) * Math.min(grid - 1, best + 1)) / (grid - 1);
-  const ratio = (Math.sqrt(5) - 1) / 2;
-  let x1 = right - ratio * (right - left);
-  let x2 = left + ratio * (right - left);
-  let f1 = f(Math.exp(x1));
-  let f2 = f(Math.exp(x2));
-  for (let i = 0; i < steps; i++) {
-    if (f1 <= f2) {
-      right = x2;
-      x2 = x1;
-      f2 = f1;
-      x1 = right - ratio * (right - left);
-      f1 = f(Math.exp(x1));
-    } else {
-      left = x1;
-      x1 = x2;
-      f1 = f2;
-      x2 = left + ratio * (right - left);
-      f2 = f(Math.exp(x2));
-    }
-  }
-  const [at, value] = f1 <= f2 ? [x1, f1] : [x2, f2];
-  return value <= bestValue ? { at: Math.exp(at), value } : { at: Math.exp(a + ((b - a) * best) / (grid - 1)), value: bestValue };
-}
+/** A one-parameter minimiser of a fit: over [lo, hi], or (when it can) near `around` once a first round found it. */
+type Minimiser = (f: (v: number) => number, lo: number, hi: number, around?: number) => LogMinimum;
+/** The constant-impedance fit: each trial is an m×m solve, so a fine grid and many golden steps cost little. */
+const CI_MINIMISER: Minimiser = (f, lo, hi) => minimiseLogGolden(f, lo, hi, GRID, GOLDEN_STEPS);
+/** The refit as it was with a fresh solve per trial: a coarser grid and golden section, from the whole range each round. */
+const FRESH_MINIMISER: Minimiser = (f, lo, hi) => minimiseLogGolden(f, lo, hi, REFINE_GRID, REFINE_STEPS);
+/**
+ * The refit: the same coarse grid, then Brent's method to about the bracket those golden steps reach (each trial is
+ * a load iteration); a later round of a degradation searches only a grid step either side of the last answer.
+ */
+const REFIT_MINIMISER: Minimiser = (f, lo, hi, around) => minimiseLogBrent(f, lo, hi, REFINE_GRID, REFIT_TOLERANCE, REFIT_MAX_TRIALS, around);
 
 interface Candidate {
   cause: CandidateCause;
@@ -302,7 +276,8 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
           problem = r.outcome.message;
           return Infinity;
         };
-    const found = this.search(c, c.parts.length > 0, trial, REFINE_GRID, REFINE_STEPS, { level: f.level, ohms: f.ohms }, REFINE_ROUNDS);
+    const minimiser = fast ? REFIT_MINIMISER : FRESH_MINIMISER;
+    const found = this.search(c, c.parts.length > 0, trial, minimiser, { level: f.level, ohms: f.ohms }, REFINE_ROUNDS);
     if (!found) return { ...f, refineProblem: problem ?? 'no trial solved with the sheet\'s load laws' };
     const opening = c.cause.kind === 'open-conductor' || c.cause.kind === 'open-connection';
     trial(found.ohms ?? (opening ? 'open' : 0), found.level);
@@ -474,7 +449,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
       }
       return this.objective(out);
     };
-    const found = this.search(c, parts.length > 0, trial, GRID, GOLDEN_STEPS);
+    const found = this.search(c, parts.length > 0, trial, CI_MINIMISER);
     if (!found) return undefined;
     const opening = c.cause.kind === 'open-conductor' || c.cause.kind === 'open-connection';
     trial(found.ohms ?? (opening ? 'open' : 0), found.level);
@@ -491,13 +466,12 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     c: Candidate,
     fitsLevel: boolean,
     trial: (ohms: number | 'open', level: number) => number,
-    grid: number,
-    steps: number,
+    minimise: Minimiser,
     start?: { level: number; ohms?: number },
     rounds = 4,
   ): { level: number; ohms?: number; value: number } | undefined {
     const [lo, hi] = fitsLevel ? this.levelRange : [1, 1];
-    const fitLevel = (ohms: number | 'open') => (fitsLevel ? minimiseLog((s) => trial(ohms, s), lo, hi, grid, steps) : { at: 1, value: trial(ohms, 1) });
+    const fitLevel = (ohms: number | 'open', around?: number) => (fitsLevel ? minimise((s) => trial(ohms, s), lo, hi, around) : { at: 1, value: trial(ohms, 1) });
     let ohms: number | undefined;
     let level: number;
     let value: number;
@@ -514,9 +488,10 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
       // From a start, a decade either side of its resistance (within the range).
       const [ohmsLo, ohmsHi] = start?.ohms ? [Math.max(this.ohmsRange[0], start.ohms / 10), Math.min(this.ohmsRange[1], start.ohms * 10)] : this.ohmsRange;
       for (let round = 0; round < rounds; round++) {
-        const r = minimiseLog((o) => trial(o, level), ohmsLo, ohmsHi, grid, steps);
+        // After the first round, near the last answer (a minimiser that cannot ignores `around`).
+        const r = minimise((o) => trial(o, level), ohmsLo, ohmsHi, round > 0 ? ohms : undefined);
         ohms = r.at;
-        const s = fitLevel(ohms);
+        const s = fitLevel(ohms, round > 0 ? level : undefined);
         level = s.at;
         if (!(s.value < value * (1 - 1e-9))) {
           value = Math.min(value, s.value);
