@@ -72,6 +72,12 @@ interface Candidate {
   levelElementIds: string[];
   /** For a load's own connection: the load part the series resistance (or opening) is in. */
   loadPart?: number;
+  /**
+   * For a connection conductor that lands on one of its load element's two pins: the kind and connection. Such
+   * candidates are one circuit (a resistance in either lead of a two-wire load is in series with the same loop),
+   * so the refit of one stands for the others.
+   */
+  loopKey?: string;
 }
 
 interface Fitted {
@@ -102,6 +108,8 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
   private refineQueue?: number[];
   /** The base network's factors for the refit's trials, made on the first refit. */
   private baseTrials?: LoadLawTrials;
+  /** Refits by loop (Candidate.loopKey). */
+  private readonly refitLoops = new Map<string, Fitted>();
   private readonly refineBest: number;
 
   constructor(
@@ -191,8 +199,12 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
         if (this.options.conductors === 'neutrals' && loadConductor !== 'N') continue;
         const base = { connectionId: connection.id, conductor: fromConductor, loadId: loadEnd.elementId };
         const common = { parts, levelElementIds: [loadEnd.elementId], loadPart: parts[0] };
-        if (causes.openings !== false) this.candidates.push({ cause: { kind: 'open-connection', ...base }, ...common });
-        if (causes.degradations !== false) this.candidates.push({ cause: { kind: 'degrade-connection', ...base, ohms: 0 }, ...common });
+        const pin = this.network.pinIndex.get(pinKey(loadEnd.elementId, loadEnd.terminal, loadConductor));
+        const part = this.network.loads[parts[0]];
+        const inLoop = pin !== undefined && (pin === part.p || pin === part.q);
+        const loop = (kind: string) => (inLoop ? { loopKey: `${kind}|${connection.id}` } : {});
+        if (causes.openings !== false) this.candidates.push({ cause: { kind: 'open-connection', ...base }, ...common, ...loop('open') });
+        if (causes.degradations !== false) this.candidates.push({ cause: { kind: 'degrade-connection', ...base, ohms: 0 }, ...common, ...loop('degrade') });
       }
     }
   }
@@ -228,7 +240,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
         this.refineQueue = order.slice(0, this.refineTarget).reverse();
       }
       const i = this.refineQueue.pop();
-      if (i !== undefined) this.fitted[i] = this.refine(this.fitted[i]);
+      if (i !== undefined) this.fitted[i] = this.refineOnce(this.fitted[i]);
     } while (now() < end);
   }
 
@@ -250,6 +262,19 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     else if (cause.kind === 'degrade-connection' && ohms !== 'open') mods.degradedConnections.set(connectionConductorKey(cause.connectionId, cause.conductor), ohms);
     if (Math.abs(level - 1) > 1e-12) for (const k of c.parts) mods.loadScale.set(this.network.loads[k].loadId, level);
     return mods;
+  }
+
+  /** The refit, or the refit of a candidate in the same loop (see Candidate.loopKey) under this one's cause. */
+  private refineOnce(f: Fitted): Fitted {
+    const key = f.candidate.loopKey;
+    const shared = key !== undefined ? this.refitLoops.get(key) : undefined;
+    if (shared && shared.loadModel === 'sheet' && this.options.refit !== 'fresh-solves') {
+      const found = { level: shared.level, ohms: shared.ohms, value: shared.objective };
+      return this.fittedOf(f.candidate, found, shared.predicted.slice(), 'sheet');
+    }
+    const refitted = this.refine(f);
+    if (key !== undefined) this.refitLoops.set(key, refitted);
+    return refitted;
   }
 
   /** A fit again with the sheet's load laws, from the constant-impedance answer. */
