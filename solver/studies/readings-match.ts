@@ -39,6 +39,8 @@ const REFINE_GRID = 7;
 const REFINE_STEPS = 14;
 /** Rounds of resistance-then-level for a degradation in the refinement. */
 const REFINE_ROUNDS = 2;
+/** Brent's stopping bracket in the constant-impedance fit (log units), about that of GOLDEN_STEPS golden steps. */
+const CI_TOLERANCE = 2e-7;
 /** Brent's stopping bracket in the refit (log units: 0.05 %), and its most trials after the grid. */
 const REFIT_TOLERANCE = 5e-4;
 const REFIT_MAX_TRIALS = 12;
@@ -52,8 +54,8 @@ const fail = (message: string, elementIds: string[] = []): Failure => ({ ok: fal
 
 /** A one-parameter minimiser of a fit: over [lo, hi], or (when it can) near `around` once a first round found it. */
 type Minimiser = (f: (v: number) => number, lo: number, hi: number, around?: number) => LogMinimum;
-/** The constant-impedance fit: each trial is an m×m solve, so a fine grid and many golden steps cost little. */
-const CI_MINIMISER: Minimiser = (f, lo, hi) => minimiseLogGolden(f, lo, hi, GRID, GOLDEN_STEPS);
+/** The constant-impedance fit: a fine grid, then Brent's method to the bracket the golden steps used to reach. */
+const CI_MINIMISER: Minimiser = (f, lo, hi) => minimiseLogBrent(f, lo, hi, GRID, CI_TOLERANCE, GOLDEN_STEPS);
 /** The refit as it was with a fresh solve per trial: a coarser grid and golden section, from the whole range each round. */
 const FRESH_MINIMISER: Minimiser = (f, lo, hi) => minimiseLogGolden(f, lo, hi, REFINE_GRID, REFINE_STEPS);
 /**
