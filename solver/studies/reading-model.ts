@@ -6,6 +6,7 @@
 import type { ComplexVector } from '../linear-system';
 import { denseComplexSolveInPlace } from '../sparse/dense-complex';
 import type { NumericLu } from '../sparse/lu';
+import type { PinClasses } from '../solve/classes';
 import { lowerSolveInPlace, permuteColumns, permuteRows, upperSolveInPlace } from '../sparse/solve';
 
 /** A branch between two classes (−1: the reference), with the classes' scales and the offset difference of its ends. */
@@ -17,6 +18,13 @@ export interface Branch {
   /** Known part of V_a − V_b (an end on an ideal source), for the right-hand side's change. */
   wRe: number;
   wIm: number;
+}
+
+/** The branch from pin p to pin q over a network's classes (`scale`: the classes' zone voltages). */
+export function branchBetween(classes: PinClasses, scale: Float64Array, p: number, q: number): Branch {
+  const a = classes.classOf[p];
+  const b = classes.classOf[q];
+  return { a, b, sa: a >= 0 ? scale[a] : 0, sb: b >= 0 ? scale[b] : 0, wRe: classes.offsetRe[p] - classes.offsetRe[q], wIm: classes.offsetIm[p] - classes.offsetIm[q] };
 }
 
 /** A reading: V = offset + sp x[p] − sq x[q]. */

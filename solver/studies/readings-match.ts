@@ -6,17 +6,23 @@
 import type { ConductorId, Sheet, WhatIfChange } from '../../shared/sheet';
 import { buildNetwork, type BuiltNetwork } from '../network/build-network';
 import { runAdmittance } from '../network/run';
-import { EARTH_PIN, pinKey, type RunLayout } from '../network/types';
+import { EARTH_PIN, pinKey, type LoadPart, type RunLayout } from '../network/types';
 import { analyse } from '../sparse/symbolic';
 import { factor, type NumericLu } from '../sparse/lu';
 import { solve } from '../sparse/solve';
 import { downstreamElements } from '../solve/downstream';
 import { solveBuiltNetwork, type Solution } from '../solve/solve-network';
-import type { ComplexVector, Factorization } from '../linear-system';
+import type { ComplexCsc, ComplexVector, Factorization } from '../linear-system';
 import { NO_MODIFICATIONS, connectionConductorKey, runConductorKey, type Modifications } from '../network/modifications';
 import { withoutExplicitZeros } from './opening-solver';
+import { LoadLawTrials, scaledPart, type TrialOutcome } from './load-law-trial';
+import { mergeTies } from '../solve/classes';
+import { findParts } from '../solve/parts';
+import { assemble } from '../solve/assemble';
+import type { PinVoltages } from '../solve/load-iteration';
 import { runAsync, runSync, type SlicedStudy } from './run-study';
-import { prepareColumns, type Branch, type PreparedColumns, type ReadingRow } from './reading-model';
+import { minimiseLogBrent, minimiseLogGolden, type LogMinimum } from './minimise-log';
+import { branchBetween, prepareColumns, type Branch, type PreparedColumns, type ReadingRow } from './reading-model';
 import type { CandidateCause, CandidateGroup, MatchCandidate, Reading, ReadingsMatchOptions, ReadingsMatchResult, StudyLoadModel, StudyOutcome, StudyProgress } from './study-types';
 
 const DEFAULT_TOLERANCE_PERCENT = 1;
@@ -33,6 +39,11 @@ const REFINE_GRID = 7;
 const REFINE_STEPS = 14;
 /** Rounds of resistance-then-level for a degradation in the refinement. */
 const REFINE_ROUNDS = 2;
+/** Brent's stopping bracket in the constant-impedance fit (log units), about that of GOLDEN_STEPS golden steps. */
+const CI_TOLERANCE = 2e-7;
+/** Brent's stopping bracket in the refit (log units: 0.05 %), and its most trials after the grid. */
+const REFIT_TOLERANCE = 5e-4;
+const REFIT_MAX_TRIALS = 12;
 const at = (v: Float64Array, i: number): number => (i >= 0 ? v[i] : 0);
 
 const now = (): number => (typeof performance !== 'undefined' ? performance.now() : Date.now());
@@ -41,47 +52,17 @@ const conductorWord = (c: ConductorId): string => (c === 'N' ? 'neutral' : c ===
 type Failure = { ok: false; error: { code: 'not-supported'; message: string; elementIds: string[] } };
 const fail = (message: string, elementIds: string[] = []): Failure => ({ ok: false, error: { code: 'not-supported', message, elementIds } });
 
-/** Minimum of f over [lo, hi] on a log scale: a grid, then golden section around the best point. */
-function minimiseLog(f: (v: number) => number, lo: number, hi: number, grid = GRID, steps = GOLDEN_STEPS): { at: number; value: number } {
-  const a = Math.log(lo);
-  const b = Math.log(hi);
-  let best = 0;
-  let bestValue = Infinity;
-  const values: number[] = [];
-  for (let i = 0; i < grid; i++) {
-    const v = f(Math.exp(a + ((b - a) * i) / (grid - 1)));
-    values.push(v);
-    if (v < bestValue) {
-      bestValue = v;
-      best = i;
-    }
-  }
-  if (!Number.isFinite(bestValue)) return { at: Math.exp(a + ((b - a) * best) / (grid - 1)), value: Infinity };
-  let left = a + ((b - a) * Math.max(0, best - 1)) / (grid - 1);
-  let right = a + ((b - a) * Math.min(grid - 1, best + 1)) / (grid - 1);
-  const ratio = (Math.sqrt(5) - 1) / 2;
-  let x1 = right - ratio * (right - left);
-  let x2 = left + ratio * (right - left);
-  let f1 = f(Math.exp(x1));
-  let f2 = f(Math.exp(x2));
-  for (let i = 0; i < steps; i++) {
-    if (f1 <= f2) {
-      right = x2;
-      x2 = x1;
-      f2 = f1;
-      x1 = right - ratio * (right - left);
-      f1 = f(Math.exp(x1));
-    } else {
-      left = x1;
-      x1 = x2;
-      f1 = f2;
-      x2 = left + ratio * (right - left);
-      f2 = f(Math.exp(x2));
-    }
-  }
-  const [at, value] = f1 <= f2 ? [x1, f1] : [x2, f2];
-  return value <= bestValue ? { at: Math.exp(at), value } : { at: Math.exp(a + ((b - a) * best) / (grid - 1)), value: bestValue };
-}
+/** A one-parameter minimiser of a fit: over [lo, hi], or (when it can) near `around` once a first round found it. */
+type Minimiser = (f: (v: number) => number, lo: number, hi: number, around?: number) => LogMinimum;
+/** The constant-impedance fit: a fine grid, then Brent's method to the bracket the golden steps used to reach. */
+const CI_MINIMISER: Minimiser = (f, lo, hi) => minimiseLogBrent(f, lo, hi, GRID, CI_TOLERANCE, GOLDEN_STEPS);
+/** The refit as it was with a fresh solve per trial: a coarser grid and golden section, from the whole range each round. */
+const FRESH_MINIMISER: Minimiser = (f, lo, hi) => minimiseLogGolden(f, lo, hi, REFINE_GRID, REFINE_STEPS);
+/**
+ * The refit: the same coarse grid, then Brent's method to about the bracket those golden steps reach (each trial is
+ * a load iteration); a later round of a degradation searches only a grid step either side of the last answer.
+ */
+const REFIT_MINIMISER: Minimiser = (f, lo, hi, around) => minimiseLogBrent(f, lo, hi, REFINE_GRID, REFIT_TOLERANCE, REFIT_MAX_TRIALS, around);
 
 interface Candidate {
   cause: CandidateCause;
@@ -93,6 +74,12 @@ interface Candidate {
   levelElementIds: string[];
   /** For a load's own connection: the load part the series resistance (or opening) is in. */
   loadPart?: number;
+  /**
+   * For a connection conductor that lands on one of its load element's two pins: the kind and connection. Such
+   * candidates are one circuit (a resistance in either lead of a two-wire load is in series with the same loop),
+   * so the refit of one stands for the others.
+   */
+  loopKey?: string;
 }
 
 interface Fitted {
@@ -121,6 +108,10 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
   skipped = 0;
   unfittedLevels = 0;
   private refineQueue?: number[];
+  /** The base network's factors for the refit's trials, made on the first refit. */
+  private baseTrials?: LoadLawTrials;
+  /** Refits by loop (Candidate.loopKey). */
+  private readonly refitLoops = new Map<string, Fitted>();
   private readonly refineBest: number;
 
   constructor(
@@ -128,6 +119,8 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     private readonly network: BuiltNetwork,
     private readonly solution: Solution,
     private readonly lu: NumericLu,
+    /** The base matrix without its explicit zeros (what `lu` factors). */
+    private readonly matrix: ComplexCsc,
     private readonly x0: ComplexVector,
     private readonly factorization: Factorization | undefined,
     rows: ReadingRow[],
@@ -169,7 +162,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     const matrix = withoutExplicitZeros(system.matrix);
     const lu = factor(analyse(matrix), matrix);
     const x0 = solve(lu, system.rhsRe, system.rhsIm);
-    return { ok: true, value: new ReadingsMatcher(sheet, network, outcome.solution, lu, x0, outcome.factorization, rows, readings, options) };
+    return { ok: true, value: new ReadingsMatcher(sheet, network, outcome.solution, lu, matrix, x0, outcome.factorization, rows, readings, options) };
   }
 
   private listCandidates(): void {
@@ -208,8 +201,12 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
         if (this.options.conductors === 'neutrals' && loadConductor !== 'N') continue;
         const base = { connectionId: connection.id, conductor: fromConductor, loadId: loadEnd.elementId };
         const common = { parts, levelElementIds: [loadEnd.elementId], loadPart: parts[0] };
-        if (causes.openings !== false) this.candidates.push({ cause: { kind: 'open-connection', ...base }, ...common });
-        if (causes.degradations !== false) this.candidates.push({ cause: { kind: 'degrade-connection', ...base, ohms: 0 }, ...common });
+        const pin = this.network.pinIndex.get(pinKey(loadEnd.elementId, loadEnd.terminal, loadConductor));
+        const part = this.network.loads[parts[0]];
+        const inLoop = pin !== undefined && (pin === part.p || pin === part.q);
+        const loop = (kind: string) => (inLoop ? { loopKey: `${kind}|${connection.id}` } : {});
+        if (causes.openings !== false) this.candidates.push({ cause: { kind: 'open-connection', ...base }, ...common, ...loop('open') });
+        if (causes.degradations !== false) this.candidates.push({ cause: { kind: 'degrade-connection', ...base, ohms: 0 }, ...common, ...loop('degrade') });
       }
     }
   }
@@ -245,7 +242,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
         this.refineQueue = order.slice(0, this.refineTarget).reverse();
       }
       const i = this.refineQueue.pop();
-      if (i !== undefined) this.fitted[i] = this.refine(this.fitted[i]);
+      if (i !== undefined) this.fitted[i] = this.refineOnce(this.fitted[i]);
     } while (now() < end);
   }
 
@@ -269,46 +266,110 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     return mods;
   }
 
-  /** A fit again with the sheet's load laws: a fresh build and solve per trial, from the constant-impedance answer. */
+  /** The refit, or the refit of a candidate in the same loop (see Candidate.loopKey) under this one's cause. */
+  private refineOnce(f: Fitted): Fitted {
+    const key = f.candidate.loopKey;
+    const shared = key !== undefined ? this.refitLoops.get(key) : undefined;
+    if (shared && shared.loadModel === 'sheet' && this.options.refit !== 'fresh-solves') {
+      const found = { level: shared.level, ohms: shared.ohms, value: shared.objective };
+      return this.fittedOf(f.candidate, found, shared.predicted.slice(), 'sheet');
+    }
+    const refitted = this.refine(f);
+    if (key !== undefined) this.refitLoops.set(key, refitted);
+    return refitted;
+  }
+
+  /** A fit again with the sheet's load laws, from the constant-impedance answer. */
   private refine(f: Fitted): Fitted {
     const c = f.candidate;
     const out = new Float64Array(this.rows.length);
     let problem: string | undefined;
-    const trial = (ohms: number | 'open', level: number): number => {
+    const fresh = (ohms: number | 'open', level: number): number => {
       const network = buildNetwork(this.sheet, this.modsOf(c, ohms, level));
       const outcome = solveBuiltNetwork(network, this.sheet.settings, this.factorization);
       if (!outcome.ok) {
         problem = outcome.error.message;
         return Infinity;
       }
-      const v = outcome.solution.volts;
-      for (let r = 0; r < this.readings.length; r++) {
-        const pins = readingPins(this.sheet, network, this.readings[r]);
-        if (!pins) return Infinity;
-        const [p, q] = pins;
-        out[r] = Math.hypot(at(v.re, p) - at(v.re, q), at(v.im, p) - at(v.im, q));
-      }
-      return this.objective(out);
+      return this.readOut(network, outcome.solution.volts, out);
     };
-    const found = this.search(c, c.parts.length > 0, trial, REFINE_GRID, REFINE_STEPS, { level: f.level, ohms: f.ohms }, REFINE_ROUNDS);
+    const fast = this.options.refit === 'fresh-solves' ? undefined : this.lowRankTrial(c, f);
+    const trial = !fast
+      ? fresh
+      : (ohms: number | 'open', level: number): number => {
+          const r = fast(ohms, level);
+          if (r.outcome.ok) return this.readOut(r.network, r.outcome.volts, out);
+          if (r.outcome.fresh) return fresh(ohms, level);
+          problem = r.outcome.message;
+          return Infinity;
+        };
+    const minimiser = fast ? REFIT_MINIMISER : FRESH_MINIMISER;
+    const found = this.search(c, c.parts.length > 0, trial, minimiser, { level: f.level, ohms: f.ohms }, REFINE_ROUNDS);
     if (!found) return { ...f, refineProblem: problem ?? 'no trial solved with the sheet\'s load laws' };
     const opening = c.cause.kind === 'open-conductor' || c.cause.kind === 'open-connection';
     trial(found.ohms ?? (opening ? 'open' : 0), found.level);
     return this.fittedOf(c, found, out.slice(), 'sheet');
   }
 
-  private branchOf(cls: number): { cls: number; scale: number } {
-    return { cls, scale: cls >= 0 ? this.solution.system.scale[cls] : 0 };
+  /** The readings of a solved network into `out`, and their objective (Infinity when a reading has no pins). */
+  private readOut(network: BuiltNetwork, v: PinVoltages, out: Float64Array): number {
+    for (let r = 0; r < this.readings.length; r++) {
+      const pins = readingPins(this.sheet, network, this.readings[r]);
+      if (!pins) return Infinity;
+      const [p, q] = pins;
+      out[r] = Math.hypot(at(v.re, p) - at(v.re, q), at(v.im, p) - at(v.im, q));
+    }
+    return this.objective(out);
+  }
+
+  /**
+   * The refit's trials through one factorization (load-law-trial.ts): the base network's for a run conductor or no
+   * break; for a load's degraded connection, the network built once with the fitted resistance (the lug is a branch
+   * of its own there). Undefined for an opened connection: its load is cut off, one fresh solve settles it.
+   */
+  private lowRankTrial(c: Candidate, f: Fitted): ((ohms: number | 'open', level: number) => { network: BuiltNetwork; outcome: TrialOutcome }) | undefined {
+    const cause = c.cause;
+    const parts = new Set(c.parts);
+    const loadsAt = (loads: LoadPart[], level: number) => (level === 1 || parts.size === 0 ? loads : loads.map((p, k) => (parts.has(k) ? scaledPart(p, level) : p)));
+    if (cause.kind === 'open-connection') return undefined;
+    if (cause.kind === 'degrade-connection') {
+      const r0 = f.ohms;
+      if (!(r0 && r0 > 0)) return undefined;
+      const network = buildNetwork(this.sheet, this.modsOf(c, r0, 1));
+      const merged = mergeTies(network);
+      if (!merged.ok) return undefined;
+      const classes = merged.classes;
+      const system = assemble(network, classes, findParts(network, classes));
+      const lug = network.stamps.find((st) => st.kind === 'degraded-connection' && st.elementId === cause.connectionId);
+      const part = network.loads.findIndex((p) => p.loadId === cause.loadId);
+      if (!lug || part < 0 || c.parts.length !== 1) return undefined;
+      const trials = new LoadLawTrials(network, classes, system, this.sheet.settings);
+      const load = network.loads[part];
+      const columns = trials.columns([branchBetween(classes, system.scale, lug.pins[0], lug.pins[1]), branchBetween(classes, system.scale, load.p, load.q)]);
+      return (ohms, level) => {
+        const dRe = new Float64Array(4);
+        const dIm = new Float64Array(4);
+        if (ohms !== 'open') dRe[0] = 1 / ohms - 1 / r0;
+        dRe[3] = (level - 1) * load.y.re;
+        dIm[3] = (level - 1) * load.y.im;
+        const loads = level === 1 ? network.loads : network.loads.map((p, k) => (k === part ? scaledPart(p, level) : p));
+        return { network, outcome: ohms === 'open' ? { ok: false, message: 'opened', fresh: true } : trials.solve(columns, dRe, dIm, loads) };
+      };
+    }
+    this.baseTrials ??= new LoadLawTrials(this.network, this.solution.classes, this.solution.system, this.sheet.settings, { matrix: this.matrix, lu: this.lu });
+    const trials = this.baseTrials;
+    const { branches, runRows } = this.branches(c, c.parts);
+    const columns = trials.columns(branches);
+    const layout = c.run !== undefined ? this.network.runs[c.run] : undefined;
+    return (ohms, level) => {
+      const { dRe, dIm } = this.delta(layout, runRows, c.conductor, ohms, level, c.parts);
+      return { network: this.network, outcome: trials.solve(columns, dRe, dIm, loadsAt(this.network.loads, level)) };
+    };
   }
 
   /** The branches of a candidate: its run's conductors (all of them when coupled), then the affected load elements. */
   private branches(c: Candidate, parts: number[]): { branches: Branch[]; runRows: number[] } {
-    const { classOf, offsetRe, offsetIm } = this.solution.classes;
-    const make = (p: number, q: number): Branch => {
-      const a = this.branchOf(classOf[p]);
-      const b = this.branchOf(classOf[q]);
-      return { a: a.cls, b: b.cls, sa: a.scale, sb: b.scale, wRe: offsetRe[p] - offsetRe[q], wIm: offsetIm[p] - offsetIm[q] };
-    };
+    const make = (p: number, q: number): Branch => branchBetween(this.solution.classes, this.solution.system.scale, p, q);
     const branches: Branch[] = [];
     let runRows: number[] = [];
     if (c.run !== undefined) {
@@ -415,7 +476,7 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
       }
       return this.objective(out);
     };
-    const found = this.search(c, parts.length > 0, trial, GRID, GOLDEN_STEPS);
+    const found = this.search(c, parts.length > 0, trial, CI_MINIMISER);
     if (!found) return undefined;
     const opening = c.cause.kind === 'open-conductor' || c.cause.kind === 'open-connection';
     trial(found.ohms ?? (opening ? 'open' : 0), found.level);
@@ -432,13 +493,12 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
     c: Candidate,
     fitsLevel: boolean,
     trial: (ohms: number | 'open', level: number) => number,
-    grid: number,
-    steps: number,
+    minimise: Minimiser,
     start?: { level: number; ohms?: number },
     rounds = 4,
   ): { level: number; ohms?: number; value: number } | undefined {
     const [lo, hi] = fitsLevel ? this.levelRange : [1, 1];
-    const fitLevel = (ohms: number | 'open') => (fitsLevel ? minimiseLog((s) => trial(ohms, s), lo, hi, grid, steps) : { at: 1, value: trial(ohms, 1) });
+    const fitLevel = (ohms: number | 'open', around?: number) => (fitsLevel ? minimise((s) => trial(ohms, s), lo, hi, around) : { at: 1, value: trial(ohms, 1) });
     let ohms: number | undefined;
     let level: number;
     let value: number;
@@ -455,9 +515,10 @@ class ReadingsMatcher implements SlicedStudy<ReadingsMatchResult> {
       // From a start, a decade either side of its resistance (within the range).
       const [ohmsLo, ohmsHi] = start?.ohms ? [Math.max(this.ohmsRange[0], start.ohms / 10), Math.min(this.ohmsRange[1], start.ohms * 10)] : this.ohmsRange;
       for (let round = 0; round < rounds; round++) {
-        const r = minimiseLog((o) => trial(o, level), ohmsLo, ohmsHi, grid, steps);
+        // After the first round, near the last answer (a minimiser that cannot ignores `around`).
+        const r = minimise((o) => trial(o, level), ohmsLo, ohmsHi, round > 0 ? ohms : undefined);
         ohms = r.at;
-        const s = fitLevel(ohms);
+        const s = fitLevel(ohms, round > 0 ? level : undefined);
         level = s.at;
         if (!(s.value < value * (1 - 1e-9))) {
           value = Math.min(value, s.value);

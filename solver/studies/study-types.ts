@@ -145,6 +145,11 @@ export interface ReadingsMatchOptions extends StudyRunOptions {
    * solves; default 10, 0 for none). Far from rated voltage (an open neutral) the load laws decide the readings.
    */
   refineBest?: number;
+  /**
+   * How the refit's trials are solved: through the base factors and a low-rank update (default), or each by a
+   * fresh build and factorization of the changed sheet (slower; the check of the default).
+   */
+  refit?: 'low-rank' | 'fresh-solves';
 }
 
 export interface MatchCandidate {

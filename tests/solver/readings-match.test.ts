@@ -5,7 +5,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { readSheet, type Sheet } from '../../shared/sheet';
+import { readSheet, type Sheet, type WhatIfChange } from '../../shared/sheet';
 import { buildNetwork, readingsMatch, readingsMatchSync, solveSheet, type Reading } from '../../solver';
 import { mulberry32 } from '../../solver/bench/four-wire-network';
 import { NO_MODIFICATIONS, type Modifications } from '../../solver/network/modifications';
@@ -243,4 +243,77 @@ describe('readings match: bad readings', () => {
     const empty = readingsMatchSync(larkspur, []);
     expect(!empty.ok && empty.error.message).toBe('the readings match needs at least one reading');
   });
+});
+
+describe('readings match: the refit through the base factors against the refit by fresh solves', () => {
+  // source of the reference: the same match with refit 'fresh-solves', each trial a fresh build and factorization
+  // of the changed sheet and the golden-section search the refit used before (an independent path to the answer);
+  // the readings are the project's full solver on a what-if (solveSheet).
+  const larkspur = fixture('larkspur-row.json');
+  const readingsOf = (changes: Record<string, WhatIfChange>, loads: string[]): Reading[] => {
+    const sheet: Sheet = { ...larkspur, whatIfs: { ...larkspur.whatIfs, check: { id: 'check', name: 'check', changes } } };
+    const solved = solveSheet(sheet, { whatIfId: 'check' });
+    if (!solved.ok) throw new Error(solved.error.message);
+    return loads.map((loadId) => {
+      const element = solved.result.loads.find((l) => l.loadId === loadId)!.elements[0];
+      return { at: { kind: 'load', loadId, element: element.label }, volts: element.volts };
+    });
+  };
+  const cases: [string, Record<string, WhatIfChange>, string[], string][] = [
+    [
+      'the open apartment 4 neutral at 130 % load, six readings',
+      { o: { kind: 'open-conductor', runId: 'apt-4-feeder', conductor: 'N' }, s: { kind: 'scale-loads', elementId: 'apt-4-feeder', factor: 1.3, scope: 'downstream' } },
+      ['apt-4-lights', 'apt-4-kitchen', 'apt-4-electronics', 'apt-3-lights', 'apt-5-kitchen', 'corridor-lights'],
+      'open-conductor apt-4-feeder N',
+    ],
+    [
+      'the failing apartment 2 lug (3 Ω), six readings',
+      { l: { kind: 'degrade-connection', connectionId: 'c-apt-2-feeder-to', conductor: 'N', ohms: 3 } },
+      ['apt-2-lights', 'apt-2-kitchen', 'apt-2-electronics', 'apt-1-lights', 'apt-3-kitchen', 'corridor-lights'],
+      'degrade-conductor apt-2-feeder N',
+    ],
+  ];
+  for (const [name, changes, loads, truth] of cases) {
+    it(`ranks, fits and groups as the fresh solves do: ${name}`, () => {
+      const readings = readingsOf(changes, loads);
+      const fresh = readingsMatchSync(larkspur, readings, { refit: 'fresh-solves' });
+      const fast = readingsMatchSync(larkspur, readings);
+      if (!fresh.ok || !fast.ok) throw new Error(!fresh.ok ? fresh.error.message : !fast.ok ? fast.error.message : '');
+      // A description without its resistance (printed to 3 figures, which may round either way)
+      const name = (c: { description: string }) => c.description.replace(/[\d.]+ Ω/, 'R');
+      const refitted = (r: typeof fresh.value) => r.groups.flatMap((g) => g.candidates).filter((c) => c.loadModel === 'sheet');
+      const a = refitted(fresh.value);
+      const b = refitted(fast.value);
+      expect(b.map(name).sort()).toEqual(a.map(name).sort());
+      expect(a.length).toBe(10);
+      // The true cause first in both, with the same fit (to the refit's search tolerance)
+      expect(key(fresh.value.best!)).toBe(truth);
+      expect(key(fast.value.best!)).toBe(truth);
+      expect(Math.abs(fast.value.fit.rmsPercent - fresh.value.fit.rmsPercent)).toBeLessThan(0.01);
+      expect(fast.value.fit.withinTolerance).toBe(fresh.value.fit.withinTolerance);
+      expect(fast.value.certainty.verdict).toBe(fresh.value.certainty.verdict);
+      expect(fast.value.certainty.locationsInBestGroup).toBe(fresh.value.certainty.locationsInBestGroup);
+      expect(fast.value.groups.map((g) => g.candidates.length)).toEqual(fresh.value.groups.map((g) => g.candidates.length));
+      expect(fast.value.groups[0].candidates.map(name).sort()).toEqual(fresh.value.groups[0].candidates.map(name).sort());
+      // Each refitted candidate: the same level, resistance and fit; any two that the fresh solves tell apart by more
+      // than 2 % of their fit keep their order
+      const byName = new Map(b.map((c) => [name(c), c]));
+      for (const c of a) {
+        const d = byName.get(name(c))!;
+        expect(Math.abs(d.rmsPercent - c.rmsPercent), c.description).toBeLessThan(Math.max(0.01, 0.01 * c.rmsPercent));
+        expect(Math.abs(d.loadLevel.factor / c.loadLevel.factor - 1), c.description).toBeLessThan(0.005);
+        if (c.cause.kind === 'degrade-conductor' || c.cause.kind === 'degrade-connection') {
+          const ohms = (d.cause as { ohms: number }).ohms;
+          expect(Math.abs(ohms / c.cause.ohms - 1), c.description).toBeLessThan(0.02);
+        }
+      }
+      const rank = new Map(b.map((c, i) => [name(c), i]));
+      for (let i = 0; i < a.length; i++) {
+        for (let j = i + 1; j < a.length; j++) {
+          if (a[j].rmsPercent <= 1.02 * a[i].rmsPercent) continue;
+          expect(rank.get(name(a[i]))!, `${a[i].description} before ${a[j].description}`).toBeLessThan(rank.get(name(a[j]))!);
+        }
+      }
+    });
+  }
 });
