@@ -194,7 +194,7 @@ export class BreakSweeper implements SlicedStudy<BreakSweepResult> {
     updates.forEach((u, i) => {
       if (!u) cases[i] = this.baseStands(heads[i], model);
       else if (u.m > BLOCK_COLUMNS) failed.push(i);
-      else pending.push({ index: i, update: u });
+      else pending.push({ index: i, update: this.solver.likelyUpdate(u) });
     });
     for (const tied of [false, true]) {
       const retry: { index: number; update: OpeningUpdate }[] = [];
@@ -213,7 +213,7 @@ export class BreakSweeper implements SlicedStudy<BreakSweepResult> {
         });
         group.forEach((g, j) => {
           if (cases[g.index]) return;
-          const withTie = !tied && !block.cases[j].tRe ? this.solver.tiedUpdate(g.update) : undefined;
+          const withTie = !tied && !block.cases[j].tRe && g.update.tieClass === undefined ? this.solver.tiedUpdate(g.update) : undefined;
           if (withTie) retry.push({ index: g.index, update: withTie });
           else failed.push(g.index);
         });

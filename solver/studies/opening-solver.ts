@@ -15,6 +15,7 @@ import { cachedRowAbsSums, maxOf, multiplyInto } from '../sparse/residual';
 import { lowerSolveInPlace, permuteColumns, permuteRows, upperSolveInPlace } from '../sparse/solve';
 import { lowerSolveBlockInPlace, upperSolveBlockInPlace, type StepWeights } from '../sparse/block-solve';
 import { BLOCK_WIDTH, ResidualProbes } from './residual-probes';
+import { CutOffSides } from './cut-off-sides';
 import { denseComplexSolveInPlace } from '../sparse/dense-complex';
 import type { PinClasses } from '../solve/classes';
 import type { AssembledSystem } from '../solve/assemble';
@@ -583,6 +584,30 @@ export class OpeningSolver {
   tiedUpdate(u: OpeningUpdate): OpeningUpdate | undefined {
     const c = u.toClass[0] >= 0 ? u.toClass[0] : u.fromClass[0];
     return c >= 0 ? this.withTie(u, c) : undefined;
+  }
+
+  private cutOff?: CutOffSides;
+
+  /**
+   * The update as a block should first try it: with its tie already when the opening removes the only coupling
+   * across a bridge of the network (a PE run with only a ground bar beyond, say), else as it is.
+   */
+  likelyUpdate(u: OpeningUpdate): OpeningUpdate {
+    if (u.m !== 1 || (u.fromClass[0] < 0 && u.toClass[0] < 0)) return u;
+    this.cutOff ??= new CutOffSides(this.matrix, this.system.scale);
+    if (u.fromClass[0] < 0 || u.toClass[0] < 0) {
+      // A conductor from the reference (an earthed bar) to one class: the opening takes −D = y off its shunt.
+      const c = Math.max(u.fromClass[0], u.toClass[0]);
+      const held = this.cutOff.sideCutOffFromReference(c, -u.dRe[0], -u.dIm[0]);
+      return held >= 0 ? this.withTie(u, held) : u;
+    }
+    const side = this.cutOff.sideCutOff(u.fromClass[0], u.toClass[0]);
+    if (side < 0) return u;
+    // The opening must take the entry between the two classes to zero (nothing else couples them).
+    const before = this.cutOff.entry(u.fromClass[0], u.toClass[0]);
+    const f = u.fromScale[0] * u.toScale[0];
+    const after = Math.hypot(before.re - f * u.dRe[0], before.im - f * u.dIm[0]);
+    return after <= 1e-9 * Math.hypot(before.re, before.im) ? this.withTie(u, side) : u;
   }
 
   private baseX0?: ComplexVector;

@@ -9,6 +9,7 @@ import { readSheet, type Sheet } from '../../shared/sheet';
 import { breakSweep, breakSweepSync, buildNetwork, solveSheet, type StudyLoadModel } from '../../solver';
 import { buildingSheet } from '../../solver/bench/building-sheet';
 import { BreakSweeper, openingMods } from '../../solver/studies/break-sweep';
+import type { OpeningSolver } from '../../solver/studies/opening-solver';
 import { assemble } from '../../solver/solve/assemble';
 import { mergeTies } from '../../solver/solve/classes';
 import { findParts } from '../../solver/solve/parts';
@@ -109,6 +110,36 @@ describe('break sweep in blocks of openings', () => {
       const one = prepared.value.solveCase({ run, conductor }, 'constant-impedance');
       expect(one.severityPercent).toBeCloseTo(c.severityPercent, 9);
       expect([one.loadsOutside, one.loadsTolerable, one.loadsWithoutVoltage]).toEqual([c.loadsOutside, c.loadsTolerable, c.loadsWithoutVoltage]);
+    }
+  });
+});
+
+describe('break sweep: openings that cut a part off', () => {
+  it('the bridges of the matrix graph name exactly the openings whose capacitance matrix is singular', () => {
+    // source: the independent check is the Woodbury system itself (K singular when the opened network floats)
+    for (const sheet of [buildingSheet(16, 7), fixture('larkspur-row.json'), fixture('farm.json')]) {
+      const prepared = BreakSweeper.prepare(sheet, { refineWorst: 0 });
+      if (!prepared.ok) throw new Error(prepared.error.message);
+      const sweeper = prepared.value as unknown as { solver: OpeningSolver; solution: { system: { rhsRe: Float64Array; rhsIm: Float64Array } }; x0: { re: Float64Array; im: Float64Array } };
+      const { solver } = sweeper;
+      const network = buildNetwork(sheet, openingMods('', 'N'));
+      let predicted = 0;
+      let singular = 0;
+      network.runs.forEach((layout, run) =>
+        layout.conductors.forEach((k, i) => {
+          const u = solver.update(layout, i);
+          if (!u) return;
+          const block = solver.solveBlock([u], sweeper.solution.system.rhsRe, sweeper.solution.system.rhsIm, sweeper.x0);
+          const isSingular = !block.cases[0].tRe;
+          const tied = solver.likelyUpdate(u) !== u;
+          expect(tied, `${layout.runId} ${k.conductor}: predicted ${tied}, singular ${isSingular}`).toBe(isSingular);
+          if (tied) predicted++;
+          if (isSingular) singular++;
+          void run;
+        }),
+      );
+      expect(predicted).toBe(singular);
+      if (sheet.elements['feeder-1']) expect(singular).toBeGreaterThan(0); // the generated building's PE runs
     }
   });
 });
