@@ -17,6 +17,7 @@ import { factor, type NumericLu } from '../sparse/lu';
 import { cachedRowAbsSums, maxOf, multiplyInto } from '../sparse/residual';
 import { lowerSolveInPlace, permuteColumns, permuteRows, upperSolveInPlace } from '../sparse/solve';
 import { withoutExplicitZeros } from './opening-solver';
+import { denseComplexFactor, denseComplexSolveFactored } from '../sparse/dense-complex';
 import type { Branch } from './reading-model';
 
 export type TrialOutcome = { ok: true; volts: PinVoltages } | { ok: false; message: string; /** A fresh build and solve may still answer. */ fresh: boolean };
@@ -154,7 +155,7 @@ export class LoadLawTrials {
       }
       kRe[a * m + a] += 1;
     }
-    const pivots = denseFactor(m, kRe, kIm, PIVOT_FLOOR * termScale);
+    const pivots = denseComplexFactor(m, kRe, kIm, PIVOT_FLOOR * termScale);
     if (!pivots) return undefined;
     const n = this.n;
     const rRe = new Float64Array(n);
@@ -166,7 +167,7 @@ export class LoadLawTrials {
         const x = this.baseSolve(bRe, bIm);
         const y = { re: Float64Array.from(branches, (b) => project(b, x.re)), im: Float64Array.from(branches, (b) => project(b, x.im)) };
         const z = times(m, dRe, dIm, y.re, y.im);
-        denseSolve(m, kRe, kIm, pivots, z.re, z.im);
+        denseComplexSolveFactored(m, kRe, kIm, pivots, z.re, z.im);
         for (let b = 0; b < m; b++) {
           const tr = z.re[b];
           const ti = z.im[b];
@@ -237,81 +238,4 @@ function times(m: number, dRe: Float64Array, dIm: Float64Array, vRe: Float64Arra
     }
   }
   return { re, im };
-}
-
-/**
- * LU of a small dense complex matrix in place (row-major, partial pivoting): K is solved once per trial and used
- * by every solve of its load iteration. The row swaps, or undefined when a pivot is at most `pivotFloor`.
- */
-function denseFactor(m: number, re: Float64Array, im: Float64Array, pivotFloor: number): Int32Array | undefined {
-  const pivots = new Int32Array(m);
-  const floor2 = pivotFloor * pivotFloor;
-  for (let k = 0; k < m; k++) {
-    let piv = k;
-    let best = -1;
-    for (let i = k; i < m; i++) {
-      const v = re[i * m + k] ** 2 + im[i * m + k] ** 2;
-      if (v > best) {
-        best = v;
-        piv = i;
-      }
-    }
-    if (!(best > floor2)) return undefined;
-    pivots[k] = piv;
-    if (piv !== k) {
-      for (let j = 0; j < m; j++) {
-        [re[k * m + j], re[piv * m + j]] = [re[piv * m + j], re[k * m + j]];
-        [im[k * m + j], im[piv * m + j]] = [im[piv * m + j], im[k * m + j]];
-      }
-    }
-    const invRe = re[k * m + k] / best;
-    const invIm = -im[k * m + k] / best;
-    for (let i = k + 1; i < m; i++) {
-      const ar = re[i * m + k];
-      const ai = im[i * m + k];
-      const fr = ar * invRe - ai * invIm;
-      const fi = ar * invIm + ai * invRe;
-      re[i * m + k] = fr;
-      im[i * m + k] = fi;
-      if (fr === 0 && fi === 0) continue;
-      for (let j = k + 1; j < m; j++) {
-        const br = re[k * m + j];
-        const bi = im[k * m + j];
-        re[i * m + j] -= fr * br - fi * bi;
-        im[i * m + j] -= fr * bi + fi * br;
-      }
-    }
-  }
-  return pivots;
-}
-
-/** Solves K z = r in place with the factors of denseFactor. */
-function denseSolve(m: number, re: Float64Array, im: Float64Array, pivots: Int32Array, rRe: Float64Array, rIm: Float64Array): void {
-  for (let k = 0; k < m; k++) {
-    const p = pivots[k];
-    if (p !== k) {
-      [rRe[k], rRe[p]] = [rRe[p], rRe[k]];
-      [rIm[k], rIm[p]] = [rIm[p], rIm[k]];
-    }
-    for (let i = k + 1; i < m; i++) {
-      const fr = re[i * m + k];
-      const fi = im[i * m + k];
-      if (fr === 0 && fi === 0) continue;
-      rRe[i] -= fr * rRe[k] - fi * rIm[k];
-      rIm[i] -= fr * rIm[k] + fi * rRe[k];
-    }
-  }
-  for (let k = m - 1; k >= 0; k--) {
-    let sr = rRe[k];
-    let si = rIm[k];
-    for (let j = k + 1; j < m; j++) {
-      sr -= re[k * m + j] * rRe[j] - im[k * m + j] * rIm[j];
-      si -= re[k * m + j] * rIm[j] + im[k * m + j] * rRe[j];
-    }
-    const pr = re[k * m + k];
-    const pi = im[k * m + k];
-    const d = pr * pr + pi * pi;
-    rRe[k] = (sr * pr + si * pi) / d;
-    rIm[k] = (si * pr - sr * pi) / d;
-  }
 }
