@@ -1,7 +1,11 @@
 // Runs one study request and reports as it goes. The same function runs in the study worker and, where there is
-// no worker, on the main thread. Progress is sent at most every 50 ms (and at the end), not after every case.
+// no worker, on the main thread. Progress is sent at most every 250 ms (and at the end), not after every case: each
+// message redraws the studies panel, and on a big sheet a redraw can take longer than 50 ms, so faster messages
+// queued up behind one another and held the answer back.
 import { breakSweepSync, faultStudy, readingsMatchSync, type SolveFailure } from '../../solver';
 import type { StudyDone, StudyMessage, StudyRequest } from './study-request';
+
+const PROGRESS_EVERY_MS = 250;
 
 type Outcome = { ok: true; result: StudyDone['result'] } | { ok: false; error: SolveFailure };
 
@@ -10,7 +14,7 @@ export function runStudy(request: StudyRequest, post: (message: StudyMessage) =>
   let lastPost = -Infinity;
   const onProgress = (done: number, total: number) => {
     const now = performance.now();
-    if (done < total && now - lastPost < 50) return;
+    if (done < total && now - lastPost < PROGRESS_EVERY_MS) return;
     lastPost = now;
     post({ type: 'study-progress', id: request.id, done, total });
   };
