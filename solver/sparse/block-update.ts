@@ -1,7 +1,7 @@
 // A change of Y confined to a few nodes (an opened or degraded conductor changes its run's whole block):
 // Woodbury over the base factors, checked by its residual on base+Δ, refactoring with the same analysis if needed.
 import { findEntry, nnzOf, samePattern, type ComplexCsc } from './csc';
-import { denseComplexSolveInPlace } from './dense-complex';
+import { capacitanceMatrix, denseComplexSolveInPlace } from './dense-complex';
 import { factor, type FactorOptions, type NumericLu } from './lu';
 import { cachedRowAbsSums, multiplyInto, relativeResidual, scaledResidual, vectorNormInf } from './residual';
 import { permuteColumns, permuteRows, lowerSolveInPlace, upperSolveInPlace, solve, assertVector } from './solve';
@@ -237,26 +237,11 @@ function lowRankSolve(
 
   // (I + Δ G) z = Δ x0. Scale: the size of the terms before they cancel; a change that leaves part of the network
   // floating makes S singular by cancellation, and its Woodbury answer would be huge yet have a tiny residual.
-  const sRe = new Float64Array(m * m);
-  const sIm = new Float64Array(m * m);
+  const { kRe: sRe, kIm: sIm, termScale } = capacitanceMatrix(m, deltaRe, deltaIm, gRe, gIm);
   const zRe = new Float64Array(m);
   const zIm = new Float64Array(m);
-  let termScale = 1;
   for (let a = 0; a < m; a++) {
     for (let b = 0; b < m; b++) {
-      let sr = a === b ? 1 : 0;
-      let si = 0;
-      let terms = a === b ? 1 : 0;
-      for (let c = 0; c < m; c++) {
-        const dr = deltaRe[a * m + c];
-        const di = deltaIm[a * m + c];
-        sr += dr * gRe[c * m + b] - di * gIm[c * m + b];
-        si += dr * gIm[c * m + b] + di * gRe[c * m + b];
-        terms += Math.hypot(dr, di) * Math.hypot(gRe[c * m + b], gIm[c * m + b]);
-      }
-      if (terms > termScale) termScale = terms;
-      sRe[a * m + b] = sr;
-      sIm[a * m + b] = si;
       const dr = deltaRe[a * m + b];
       const di = deltaIm[a * m + b];
       zRe[a] += dr * x0Re[b] - di * x0Im[b];

@@ -99,6 +99,37 @@ export function denseComplexSolveInPlace(
   return true;
 }
 
+/**
+ * K = I + D G of a low-rank update (m×m row-major, D the change and G = UᵀW), with the size of its terms before
+ * they cancel: a change that leaves part of the network floating makes K singular by cancellation, so the pivot
+ * floor is taken relative to that size, not to K's entries.
+ */
+export function capacitanceMatrix(m: number, dRe: Float64Array, dIm: Float64Array, gRe: Float64Array, gIm: Float64Array): { kRe: Float64Array; kIm: Float64Array; termScale: number } {
+  const kRe = new Float64Array(m * m);
+  const kIm = new Float64Array(m * m);
+  let termScale = 1;
+  for (let a = 0; a < m; a++) {
+    for (let b = 0; b < m; b++) {
+      let sr = a === b ? 1 : 0;
+      let si = 0;
+      let terms = a === b ? 1 : 0;
+      for (let c = 0; c < m; c++) {
+        const dr = dRe[a * m + c];
+        const di = dIm[a * m + c];
+        const gr = gRe[c * m + b];
+        const gi = gIm[c * m + b];
+        sr += dr * gr - di * gi;
+        si += dr * gi + di * gr;
+        terms += Math.hypot(dr, di) * Math.hypot(gr, gi);
+      }
+      if (terms > termScale) termScale = terms;
+      kRe[a * m + b] = sr;
+      kIm[a * m + b] = si;
+    }
+  }
+  return { kRe, kIm, termScale };
+}
+
 function swap(a: Float64Array, i: number, j: number): void {
   const t = a[i];
   a[i] = a[j];

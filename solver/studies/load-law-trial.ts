@@ -17,7 +17,7 @@ import { factor, type NumericLu } from '../sparse/lu';
 import { cachedRowAbsSums, maxOf, multiplyInto } from '../sparse/residual';
 import { lowerSolveInPlace, permuteColumns, permuteRows, upperSolveInPlace } from '../sparse/solve';
 import { withoutExplicitZeros } from './opening-solver';
-import { denseComplexFactor, denseComplexSolveFactored } from '../sparse/dense-complex';
+import { capacitanceMatrix, denseComplexFactor, denseComplexSolveFactored } from '../sparse/dense-complex';
 import type { Branch } from './reading-model';
 
 export type TrialOutcome = { ok: true; volts: PinVoltages } | { ok: false; message: string; /** A fresh build and solve may still answer. */ fresh: boolean };
@@ -136,25 +136,7 @@ export class LoadLawTrials {
   private updatedSolver(cols: CandidateColumns, dRe: Float64Array, dIm: Float64Array): LinearSolver | undefined {
     const { branches, gRe, gIm, wRe, wIm } = cols;
     const m = branches.length;
-    const kRe = new Float64Array(m * m);
-    const kIm = new Float64Array(m * m);
-    let termScale = 1;
-    for (let a = 0; a < m; a++) {
-      for (let c = 0; c < m; c++) {
-        const dr = dRe[a * m + c];
-        const di = dIm[a * m + c];
-        if (dr === 0 && di === 0) continue;
-        const dm = Math.hypot(dr, di);
-        for (let b = 0; b < m; b++) {
-          const gr = gRe[c * m + b];
-          const gi = gIm[c * m + b];
-          kRe[a * m + b] += dr * gr - di * gi;
-          kIm[a * m + b] += dr * gi + di * gr;
-          termScale = Math.max(termScale, dm * Math.hypot(gr, gi));
-        }
-      }
-      kRe[a * m + a] += 1;
-    }
+    const { kRe, kIm, termScale } = capacitanceMatrix(m, dRe, dIm, gRe, gIm);
     const pivots = denseComplexFactor(m, kRe, kIm, PIVOT_FLOOR * termScale);
     if (!pivots) return undefined;
     const n = this.n;

@@ -122,13 +122,8 @@ export class LoadWatch {
       tIm.set(k.tIm, k.offset);
     });
     const acc = new CaseAccumulators(count);
-    readBlock(this.data, order, block, tRe, tIm, first, end, acc);
+    readBlock(this, order, block, tRe, tIm, first, end, acc);
     return cases.map((_, c) => ({ figures: this.figuresOf(acc, c), xMax: Math.sqrt(acc.xMax[c]) }));
-  }
-
-  /** The arrays readBlock runs over (kept private to the watch otherwise). */
-  get data(): WatchData {
-    return this;
   }
 
   private stepOrder(place: Int32Array): StepOrder {

@@ -14,9 +14,9 @@ import { factor, type NumericLu } from '../sparse/lu';
 import { cachedRowAbsSums, maxOf, multiplyInto } from '../sparse/residual';
 import { lowerSolveInPlace, permuteColumns, permuteRows, upperSolveInPlace } from '../sparse/solve';
 import { lowerSolveBlockInPlace, upperSolveBlockInPlace, type StepWeights } from '../sparse/block-solve';
-import { BLOCK_WIDTH, ResidualProbes } from './residual-probes';
+import { ResidualProbes } from './residual-probes';
 import { CutOffSides } from './cut-off-sides';
-import { denseComplexSolveInPlace } from '../sparse/dense-complex';
+import { capacitanceMatrix, denseComplexSolveInPlace } from '../sparse/dense-complex';
 import type { PinClasses } from '../solve/classes';
 import type { AssembledSystem } from '../solve/assemble';
 
@@ -25,7 +25,7 @@ export const OPENING_RESIDUAL_TOLERANCE = 1e-10;
 /** Below this share of its terms a pivot of K has lost too many digits (as solveWithBlockUpdate). */
 const PIVOT_FLOOR = 1e-8;
 /** Columns of W solved together in one pass over the factors (the gain levels off beyond about 16). */
-export const BLOCK_COLUMNS = BLOCK_WIDTH;
+export const BLOCK_COLUMNS = 16;
 
 /** The update of one opening: m columns of U and the m×m D, row-major. */
 export interface OpeningUpdate {
@@ -77,6 +77,16 @@ export interface OpeningBlock {
   cases: BlockCase[];
   /** Per probe, g·W of each column (see residual-probes.ts), valid until the next block is solved. */
   dots: readonly StepWeights[];
+  probes: ResidualProbes;
+}
+
+/** What every block over one base right-hand side shares. */
+interface BlockBase {
+  x0: ComplexVector;
+  /** x0 by pivot step, entry n the reference's zero. */
+  x0Re: Float64Array;
+  x0Im: Float64Array;
+  probes: ResidualProbes;
 }
 
 /** W[c, column] (zero for the reference, c = −1). */
@@ -262,7 +272,7 @@ export class OpeningSolver {
         gIm[a * m + b] = g.im;
       }
     }
-    return capacitanceOf(u, gRe, gIm);
+    return capacitanceMatrix(u.m, u.dRe, u.dIm, gRe, gIm);
   }
 
   /** z = K⁻¹ D Uᵀ y, or undefined when K is singular to working precision. */
@@ -501,17 +511,18 @@ export class OpeningSolver {
       x0Im: base.x0Im,
       cases: [],
       dots,
+      probes: base.probes,
     };
     let offset = 0;
     for (const u of updates) {
-      block.cases.push(this.blockCase(block, u, offset));
+      block.cases.push(this.blockCase(block, u, offset, x0));
       offset += u.m;
     }
     return block;
   }
 
   /** One opening's t from its columns of the block, or none when K is singular. */
-  private blockCase(block: OpeningBlock, u: OpeningUpdate, offset: number): BlockCase {
+  private blockCase(block: OpeningBlock, u: OpeningUpdate, offset: number, x0: ComplexVector): BlockCase {
     const m = u.m;
     const gRe = new Float64Array(m * m);
     const gIm = new Float64Array(m * m);
@@ -523,9 +534,9 @@ export class OpeningSolver {
         gIm[a * m + b] = u.fromScale[a] * from.im - u.toScale[a] * to.im;
       }
     }
-    const k = capacitanceOf(u, gRe, gIm);
+    const k = capacitanceMatrix(u.m, u.dRe, u.dIm, gRe, gIm);
     const t0 = OpeningSolver.dTimes(u, u.wRe, u.wIm);
-    const y = OpeningSolver.projectAll(u, this.baseX0!.re, this.baseX0!.im);
+    const y = OpeningSolver.projectAll(u, x0.re, x0.im);
     for (let a = 0; a < m; a++) {
       for (let b = 0; b < m; b++) {
         const gr = gRe[a * m + b];
@@ -567,7 +578,7 @@ export class OpeningSolver {
       ux.im[a] = u.fromScale[a] * from.im - u.toScale[a] * to.im + u.wIm[a];
     }
     const v = OpeningSolver.dTimes(u, ux.re, ux.im);
-    const residual = this.baseProbes!.relativeResidual(block.dots, c.offset, m, c.tRe, c.tIm, xMax, this.aNorm, (zv) => {
+    const residual = block.probes.relativeResidual(block.dots, c.offset, m, c.tRe, c.tIm, xMax, this.aNorm, (zv) => {
       let re = 0;
       let im = 0;
       for (let a = 0; a < m; a++) {
@@ -610,26 +621,21 @@ export class OpeningSolver {
     return after <= 1e-9 * Math.hypot(before.re, before.im) ? this.withTie(u, side) : u;
   }
 
-  private baseX0?: ComplexVector;
-  private baseProbes?: ResidualProbes;
-  private baseStep?: { x0Re: Float64Array; x0Im: Float64Array };
+  private base?: BlockBase;
 
   /** x0 in pivot order and the probes, kept while the same base is asked for. */
-  private baseFor(bRe: Float64Array, bIm: Float64Array, x0: ComplexVector): { x0Re: Float64Array; x0Im: Float64Array; probes: ResidualProbes } {
-    if (!this.baseProbes || !this.baseStep || !this.baseProbes.isFor(bRe, bIm, x0)) {
-      const order = this.lu.colOrder;
-      this.baseX0 = x0;
-      this.baseProbes = new ResidualProbes(this.matrix, order, bRe, bIm, x0);
-      // By pivot step, with the reference's zero as entry n (see the block's extra row).
-      const x0Re = new Float64Array(this.n + 1);
-      const x0Im = new Float64Array(this.n + 1);
-      order.forEach((c, k) => {
-        x0Re[k] = x0.re[c];
-        x0Im[k] = x0.im[c];
-      });
-      this.baseStep = { x0Re, x0Im };
-    }
-    return { ...this.baseStep, probes: this.baseProbes };
+  private baseFor(bRe: Float64Array, bIm: Float64Array, x0: ComplexVector): BlockBase {
+    if (this.base?.probes.isFor(bRe, bIm, x0)) return this.base;
+    const order = this.lu.colOrder;
+    // By pivot step, with the reference's zero as entry n (see the block's extra row).
+    const x0Re = new Float64Array(this.n + 1);
+    const x0Im = new Float64Array(this.n + 1);
+    order.forEach((c, k) => {
+      x0Re[k] = x0.re[c];
+      x0Im[k] = x0.im[c];
+    });
+    this.base = { x0, x0Re, x0Im, probes: new ResidualProbes(this.matrix, order, bRe, bIm, x0, BLOCK_COLUMNS) };
+    return this.base;
   }
 
   /**
@@ -695,30 +701,3 @@ export function withoutExplicitZeros(a: ComplexCsc): ComplexCsc {
   return { n, colPtr, rowIdx, re, im };
 }
 
-/** K = I + D G for G = UᵀW (m×m row-major), with the scale of its terms for the pivot floor. */
-function capacitanceOf(u: OpeningUpdate, gRe: Float64Array, gIm: Float64Array): Capacitance {
-  const m = u.m;
-  const kRe = new Float64Array(m * m);
-  const kIm = new Float64Array(m * m);
-  let termScale = 1;
-  for (let a = 0; a < m; a++) {
-    for (let b = 0; b < m; b++) {
-      let sr = a === b ? 1 : 0;
-      let si = 0;
-      let terms = a === b ? 1 : 0;
-      for (let c = 0; c < m; c++) {
-        const dr = u.dRe[a * m + c];
-        const di = u.dIm[a * m + c];
-        const gr = gRe[c * m + b];
-        const gi = gIm[c * m + b];
-        sr += dr * gr - di * gi;
-        si += dr * gi + di * gr;
-        terms += Math.hypot(dr, di) * Math.hypot(gr, gi);
-      }
-      if (terms > termScale) termScale = terms;
-      kRe[a * m + b] = sr;
-      kIm[a * m + b] = si;
-    }
-  }
-  return { kRe, kIm, termScale };
-}

@@ -8,9 +8,6 @@
 import type { ComplexCsc, ComplexVector } from '../linear-system';
 import type { StepWeights } from '../sparse/block-solve';
 
-/** The widest block the sums are kept for (the opening solver's BLOCK_COLUMNS). */
-export const BLOCK_WIDTH = 16;
-
 const SEED = 0x5eed_2026;
 
 interface Probe {
@@ -38,6 +35,8 @@ export class ResidualProbes {
     private readonly bRe: Float64Array,
     private readonly bIm: Float64Array,
     private readonly x0: ComplexVector,
+    /** The widest block whose sums the weights hold. */
+    blockWidth: number,
   ) {
     const n = matrix.n;
     const normal = gaussian(SEED);
@@ -71,7 +70,7 @@ export class ResidualProbes {
       return { z, gRe, gIm, gx0Re, gx0Im, zbRe, zbIm };
     };
     this.probes = [probe(), probe()];
-    this.weightings = this.probes.map((p) => ({ re: p.gRe, im: p.gIm, sumRe: new Float64Array(BLOCK_WIDTH), sumIm: new Float64Array(BLOCK_WIDTH) }));
+    this.weightings = this.probes.map((p) => ({ re: p.gRe, im: p.gIm, sumRe: new Float64Array(blockWidth), sumIm: new Float64Array(blockWidth) }));
     let bMax = 0;
     for (let i = 0; i < n; i++) bMax = Math.max(bMax, bRe[i] * bRe[i] + bIm[i] * bIm[i]);
     this.bMax = Math.sqrt(bMax);

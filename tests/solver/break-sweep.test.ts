@@ -125,7 +125,7 @@ describe('break sweep: openings that cut a part off', () => {
       const network = buildNetwork(sheet, openingMods('', 'N'));
       let predicted = 0;
       let singular = 0;
-      network.runs.forEach((layout, run) =>
+      network.runs.forEach((layout) =>
         layout.conductors.forEach((k, i) => {
           const u = solver.update(layout, i);
           if (!u) return;
@@ -135,7 +135,6 @@ describe('break sweep: openings that cut a part off', () => {
           expect(tied, `${layout.runId} ${k.conductor}: predicted ${tied}, singular ${isSingular}`).toBe(isSingular);
           if (tied) predicted++;
           if (isSingular) singular++;
-          void run;
         }),
       );
       expect(predicted).toBe(singular);

@@ -44,7 +44,7 @@ describe('residual probes', () => {
   const bRe = Float64Array.from({ length: n }, (_, i) => Math.sin(i));
   const bIm = Float64Array.from({ length: n }, (_, i) => Math.cos(2 * i));
   const x0 = solve(lu, bRe, bIm);
-  const probes = new ResidualProbes(a, lu.colOrder, bRe, bIm, x0);
+  const probes = new ResidualProbes(a, lu.colOrder, bRe, bIm, x0, 1);
   const rowSums = new Float64Array(n);
   for (let p = 0; p < a.colPtr[n]; p++) rowSums[a.rowIdx[p]] += Math.hypot(a.re[p], a.im[p]);
   const aNorm = Math.max(...rowSums);
