@@ -4,13 +4,36 @@
 // openings feels.
 import type { NumericLu } from './lu';
 
-/** Y ← L⁻¹ Y for an interleaved block of `width` columns; a row that is zero in every column is skipped. */
-export function lowerSolveBlockInPlace(lu: NumericLu, yRe: Float64Array, yIm: Float64Array, width: number, firstRow = 0): void {
+/**
+ * Weights by pivot step, and per column the sum Σ_k v_k y_k that the forward substitution forms as it goes. Given
+ * v = U⁻ᵀ g (upperTransposeSolve), that sum is g·(U⁻¹ y): the weighted sum of the finished solve, read from the
+ * forward result, which for an opening's pair of unit entries is nonzero on a few dozen rows only.
+ */
+export interface StepWeights {
+  re: Float64Array;
+  im: Float64Array;
+  sumRe: Float64Array;
+  sumIm: Float64Array;
+}
+
+/**
+ * Y ← L⁻¹ Y for an interleaved block of `width` columns; a row that is zero in every column is skipped. Each
+ * weighting given gets Σ_j v_j y_j per column, taken while row j is final (see StepWeights).
+ */
+export function lowerSolveBlockInPlace(
+  lu: NumericLu,
+  yRe: Float64Array,
+  yIm: Float64Array,
+  width: number,
+  firstRow = 0,
+  weights: readonly StepWeights[] = [],
+): void {
   const { n, lColPtr, lRowIdx, lRe, lIm } = lu;
+  for (const w of weights) {
+    w.sumRe.fill(0, 0, width);
+    w.sumIm.fill(0, 0, width);
+  }
   for (let j = firstRow; j < n; j++) {
-    const start = lColPtr[j];
-    const end = lColPtr[j + 1];
-    if (start === end) continue;
     const jb = j * width;
     let any = false;
     for (let b = 0; b < width; b++) {
@@ -20,7 +43,18 @@ export function lowerSolveBlockInPlace(lu: NumericLu, yRe: Float64Array, yIm: Fl
       }
     }
     if (!any) continue;
-    for (let p = start; p < end; p++) {
+    for (const w of weights) {
+      const wr = w.re[j];
+      const wi = w.im[j];
+      const { sumRe, sumIm } = w;
+      for (let b = 0; b < width; b++) {
+        const vr = yRe[jb + b];
+        const vi = yIm[jb + b];
+        sumRe[b] += wr * vr - wi * vi;
+        sumIm[b] += wr * vi + wi * vr;
+      }
+    }
+    for (let p = lColPtr[j], end = lColPtr[j + 1]; p < end; p++) {
       const rb = lRowIdx[p] * width;
       const lr = lRe[p];
       const li = lIm[p];
@@ -34,25 +68,32 @@ export function lowerSolveBlockInPlace(lu: NumericLu, yRe: Float64Array, yIm: Fl
   }
 }
 
-/** Weights by pivot step, and per column the sum Σ_k w_k y_k that the back substitution forms as it goes. */
-export interface StepWeights {
-  re: Float64Array;
-  im: Float64Array;
-  sumRe: Float64Array;
-  sumIm: Float64Array;
+/** v with Uᵀ v = g (g and v by pivot step): the weights under which a forward result reads g·(U⁻¹ y). */
+export function upperTransposeSolve(lu: NumericLu, gRe: Float64Array, gIm: Float64Array): { re: Float64Array; im: Float64Array } {
+  const { n, uColPtr, uRowIdx, uRe, uIm, uDiagRe, uDiagIm } = lu;
+  const re = new Float64Array(n);
+  const im = new Float64Array(n);
+  // Column k of U is row k of Uᵀ: its entries above the diagonal meet the v already found.
+  for (let k = 0; k < n; k++) {
+    let sr = gRe[k];
+    let si = gIm[k];
+    for (let p = uColPtr[k], end = uColPtr[k + 1]; p < end; p++) {
+      const i = uRowIdx[p];
+      sr -= uRe[p] * re[i] - uIm[p] * im[i];
+      si -= uRe[p] * im[i] + uIm[p] * re[i];
+    }
+    const dr = uDiagRe[k];
+    const di = uDiagIm[k];
+    const d2 = dr * dr + di * di;
+    re[k] = (sr * dr + si * di) / d2;
+    im[k] = (si * dr - sr * di) / d2;
+  }
+  return { re, im };
 }
 
-/**
- * Y ← U⁻¹ Y for an interleaved block of `width` columns (column by column of U from the last). Each weighting
- * given gets Σ_k w_k y_k per column, taken while row k is fresh from its division (a later pass over the block
- * would read it all again).
- */
-export function upperSolveBlockInPlace(lu: NumericLu, yRe: Float64Array, yIm: Float64Array, width: number, weights: readonly StepWeights[] = []): void {
+/** Y ← U⁻¹ Y for an interleaved block of `width` columns (column by column of U from the last). */
+export function upperSolveBlockInPlace(lu: NumericLu, yRe: Float64Array, yIm: Float64Array, width: number): void {
   const { n, uColPtr, uRowIdx, uRe, uIm, uDiagRe, uDiagIm } = lu;
-  for (const w of weights) {
-    w.sumRe.fill(0, 0, width);
-    w.sumIm.fill(0, 0, width);
-  }
   for (let k = n - 1; k >= 0; k--) {
     const dr = uDiagRe[k];
     const di = uDiagIm[k];
@@ -65,17 +106,6 @@ export function upperSolveBlockInPlace(lu: NumericLu, yRe: Float64Array, yIm: Fl
       const yi = yIm[kb + b];
       yRe[kb + b] = yr * ir - yi * ii;
       yIm[kb + b] = yr * ii + yi * ir;
-    }
-    for (const w of weights) {
-      const wr = w.re[k];
-      const wi = w.im[k];
-      const { sumRe, sumIm } = w;
-      for (let b = 0; b < width; b++) {
-        const vr = yRe[kb + b];
-        const vi = yIm[kb + b];
-        sumRe[b] += wr * vr - wi * vi;
-        sumIm[b] += wr * vi + wi * vr;
-      }
     }
     for (let p = uColPtr[k], end = uColPtr[k + 1]; p < end; p++) {
       const rb = uRowIdx[p] * width;

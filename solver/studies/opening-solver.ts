@@ -499,9 +499,9 @@ export class OpeningSolver {
         }
       }
     }
-    lowerSolveBlockInPlace(lu, blockRe, blockIm, width, firstRow);
     const dots = base.probes.weights();
-    upperSolveBlockInPlace(lu, blockRe, blockIm, width, dots);
+    lowerSolveBlockInPlace(lu, blockRe, blockIm, width, firstRow, dots);
+    upperSolveBlockInPlace(lu, blockRe, blockIm, width);
     const block: OpeningBlock = {
       width,
       re: blockRe,
@@ -634,7 +634,7 @@ export class OpeningSolver {
       x0Re[k] = x0.re[c];
       x0Im[k] = x0.im[c];
     });
-    this.base = { x0, x0Re, x0Im, probes: new ResidualProbes(this.matrix, order, bRe, bIm, x0, BLOCK_COLUMNS) };
+    this.base = { x0, x0Re, x0Im, probes: new ResidualProbes(this.matrix, this.lu, bRe, bIm, x0, BLOCK_COLUMNS) };
     return this.base;
   }
 

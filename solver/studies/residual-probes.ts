@@ -3,10 +3,11 @@
 // at the cost of a dot product, given g = Aᵀz formed once: z·(A x − b) = g·x − z·b. This is Freivalds' idea for
 // checking a product, used for a residual. With two probes, both read below a hundredth of a real residual with a
 // chance of about 6e-5 (P(|N(0,1)| < 0.01)² for the worst, purely real r); the probes are seeded, so a run is
-// repeatable. A sweep of thousands of openings then pays a pass over its block of columns where a product with A
-// per opening cost as much as the solve itself.
+// repeatable. With v = U⁻ᵀg also formed once, g·W of an opening's column W = U⁻¹L⁻¹u is v·(L⁻¹u), read from the
+// forward result, nonzero on a few dozen rows; a product with A per opening cost as much as the solve itself.
 import type { ComplexCsc, ComplexVector } from '../linear-system';
-import type { StepWeights } from '../sparse/block-solve';
+import { upperTransposeSolve, type StepWeights } from '../sparse/block-solve';
+import type { NumericLu } from '../sparse/lu';
 
 const SEED = 0x5eed_2026;
 
@@ -31,7 +32,7 @@ export class ResidualProbes {
 
   constructor(
     matrix: ComplexCsc,
-    colOrder: Int32Array,
+    lu: NumericLu,
     private readonly bRe: Float64Array,
     private readonly bIm: Float64Array,
     private readonly x0: ComplexVector,
@@ -39,6 +40,7 @@ export class ResidualProbes {
     blockWidth: number,
   ) {
     const n = matrix.n;
+    const colOrder = lu.colOrder;
     const normal = gaussian(SEED);
     const probe = (): Probe => {
       const z = Float64Array.from({ length: n }, normal);
@@ -70,7 +72,7 @@ export class ResidualProbes {
       return { z, gRe, gIm, gx0Re, gx0Im, zbRe, zbIm };
     };
     this.probes = [probe(), probe()];
-    this.weightings = this.probes.map((p) => ({ re: p.gRe, im: p.gIm, sumRe: new Float64Array(blockWidth), sumIm: new Float64Array(blockWidth) }));
+    this.weightings = this.probes.map((p) => ({ ...upperTransposeSolve(lu, p.gRe, p.gIm), sumRe: new Float64Array(blockWidth), sumIm: new Float64Array(blockWidth) }));
     let bMax = 0;
     for (let i = 0; i < n; i++) bMax = Math.max(bMax, bRe[i] * bRe[i] + bIm[i] * bIm[i]);
     this.bMax = Math.sqrt(bMax);
@@ -81,8 +83,8 @@ export class ResidualProbes {
   }
 
   /**
-   * The probes as weights for a block's back substitution (upperSolveBlockInPlace), which then forms g·W_b of
-   * every column b; the sums are reused by the next block, so read them (relativeResidual) before solving again.
+   * The probes as weights for a block's forward substitution (U⁻ᵀg, for lowerSolveBlockInPlace), which then forms
+   * g·W_b of every column b; the sums are reused by the next block, so read them (relativeResidual) before solving again.
    */
   weights(): StepWeights[] {
     return this.weightings;

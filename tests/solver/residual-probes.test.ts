@@ -44,22 +44,38 @@ describe('residual probes', () => {
   const bRe = Float64Array.from({ length: n }, (_, i) => Math.sin(i));
   const bIm = Float64Array.from({ length: n }, (_, i) => Math.cos(2 * i));
   const x0 = solve(lu, bRe, bIm);
-  const probes = new ResidualProbes(a, lu.colOrder, bRe, bIm, x0, 1);
+  const probes = new ResidualProbes(a, lu, bRe, bIm, x0, 1);
   const rowSums = new Float64Array(n);
   for (let p = 0; p < a.colPtr[n]; p++) rowSums[a.rowIdx[p]] += Math.hypot(a.re[p], a.im[p]);
   const aNorm = Math.max(...rowSums);
   const xMax = Math.max(...[...x0.re].map((re, i) => Math.hypot(re, x0.im[i])));
   const none = () => ({ re: 0, im: 0 });
   const dotsOf = (w: { re: Float64Array; im: Float64Array }) => {
-    // g·W for one column W, as the block's back substitution forms it (weights by pivot step)
+    // g·W for one column W, as the block's forward substitution forms it: the weights are U⁻ᵀg by pivot step and
+    // meet the forward result L⁻¹u = U W (W by pivot step)
+    const y = { re: new Float64Array(n), im: new Float64Array(n) };
+    lu.colOrder.forEach((c, k) => {
+      y.re[k] = w.re[c];
+      y.im[k] = w.im[c];
+    });
+    const uw = { re: new Float64Array(n), im: new Float64Array(n) };
+    for (let k = 0; k < n; k++) {
+      uw.re[k] += lu.uDiagRe[k] * y.re[k] - lu.uDiagIm[k] * y.im[k];
+      uw.im[k] += lu.uDiagRe[k] * y.im[k] + lu.uDiagIm[k] * y.re[k];
+      for (let p = lu.uColPtr[k]; p < lu.uColPtr[k + 1]; p++) {
+        const i = lu.uRowIdx[p];
+        uw.re[i] += lu.uRe[p] * y.re[k] - lu.uIm[p] * y.im[k];
+        uw.im[i] += lu.uRe[p] * y.im[k] + lu.uIm[p] * y.re[k];
+      }
+    }
     const weights = probes.weights();
-    for (const g of weights) {
-      g.sumRe[0] = 0;
-      g.sumIm[0] = 0;
-      lu.colOrder.forEach((c, k) => {
-        g.sumRe[0] += g.re[k] * w.re[c] - g.im[k] * w.im[c];
-        g.sumIm[0] += g.re[k] * w.im[c] + g.im[k] * w.re[c];
-      });
+    for (const v of weights) {
+      v.sumRe[0] = 0;
+      v.sumIm[0] = 0;
+      for (let k = 0; k < n; k++) {
+        v.sumRe[0] += v.re[k] * uw.re[k] - v.im[k] * uw.im[k];
+        v.sumIm[0] += v.re[k] * uw.im[k] + v.im[k] * uw.re[k];
+      }
     }
     return weights;
   };

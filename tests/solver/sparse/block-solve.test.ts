@@ -2,7 +2,7 @@
 // radial and meshed networks; sparse unit columns as the sweep gives them, and dense ones.
 import { describe, expect, it } from 'vitest';
 import { analyse, factor } from '../../../solver/sparse';
-import { lowerSolveBlockInPlace, upperSolveBlockInPlace } from '../../../solver/sparse/block-solve';
+import { lowerSolveBlockInPlace, upperSolveBlockInPlace, upperTransposeSolve } from '../../../solver/sparse/block-solve';
 import { mathjsSolve, mulberry32, randomNetwork, randomVector, relativeDifference } from './helpers';
 
 describe('block triangular solves agree with mathjs lusolve', () => {
@@ -30,10 +30,11 @@ describe('block triangular solves agree with mathjs lusolve', () => {
           yIm[lu.rowPivot[i] * width + b] = c.im[i];
         }
       });
-      lowerSolveBlockInPlace(lu, yRe, yIm, width);
-      // weights by pivot step: the sums must be Σ_k w_k x_k of each solved column
-      const weight = { re: Float64Array.from({ length: nodes }, () => rng()), im: Float64Array.from({ length: nodes }, () => rng()), sumRe: new Float64Array(width), sumIm: new Float64Array(width) };
-      upperSolveBlockInPlace(lu, yRe, yIm, width, [weight]);
+      // g by pivot step; given U⁻ᵀg as weights, the forward substitution's sums must be Σ_k g_k x_k of each solved column
+      const g = { re: Float64Array.from({ length: nodes }, () => rng()), im: Float64Array.from({ length: nodes }, () => rng()) };
+      const weight = { ...upperTransposeSolve(lu, g.re, g.im), sumRe: new Float64Array(width), sumIm: new Float64Array(width) };
+      lowerSolveBlockInPlace(lu, yRe, yIm, width, 0, [weight]);
+      upperSolveBlockInPlace(lu, yRe, yIm, width);
       columns.forEach((c, b) => {
         const x = { re: new Float64Array(nodes), im: new Float64Array(nodes) };
         for (let k = 0; k < nodes; k++) {
@@ -47,8 +48,8 @@ describe('block triangular solves agree with mathjs lusolve', () => {
         let si = 0;
         for (let k = 0; k < nodes; k++) {
           const j = lu.colOrder[k];
-          sr += weight.re[k] * expected.re[j] - weight.im[k] * expected.im[j];
-          si += weight.re[k] * expected.im[j] + weight.im[k] * expected.re[j];
+          sr += g.re[k] * expected.re[j] - g.im[k] * expected.im[j];
+          si += g.re[k] * expected.im[j] + g.im[k] * expected.re[j];
         }
         expect(Math.hypot(weight.sumRe[b] - sr, weight.sumIm[b] - si) / Math.hypot(sr, si), `weighted sum ${b}`).toBeLessThan(1e-9);
       });
