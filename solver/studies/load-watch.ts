@@ -131,12 +131,23 @@ export class LoadWatch {
     // The reference (class −1) reads the block's zero row n.
     const stepOf = (c: number) => (c >= 0 ? place[c] : place.length);
     const element = Int32Array.from({ length: this.count }, (_, t) => t).sort((s, t) => stepOf(this.pClass[s]) - stepOf(this.pClass[t]));
+    const byElement = (values: Float64Array) => Float64Array.from(element, (t) => values[t]);
     this.byStep = {
       place,
       count: this.count,
       element,
       pStep: Int32Array.from(element, (t) => stepOf(this.pClass[t])),
       qStep: Int32Array.from(element, (t) => stepOf(this.qClass[t])),
+      pScale: byElement(this.pScale),
+      qScale: byElement(this.qScale),
+      offRe: byElement(this.offRe),
+      offIm: byElement(this.offIm),
+      floor: Float64Array.from(element, (t) => WITHOUT_VOLTAGE_FRACTION * this.nominal[t]),
+      invNominal: Float64Array.from(element, (t) => 1 / this.nominal[t]),
+      normalLo: byElement(this.normalLo),
+      normalHi: byElement(this.normalHi),
+      tolerableLo: byElement(this.tolerableLo),
+      tolerableHi: byElement(this.tolerableHi),
     };
     return this.byStep;
   }
@@ -187,6 +198,7 @@ export class LoadWatch {
   }
 }
 
+/** The watched elements' data in the order a block is read (entry e for element element[e]). */
 interface StepOrder {
   place: Int32Array;
   count: number;
@@ -194,6 +206,17 @@ interface StepOrder {
   element: Int32Array;
   pStep: Int32Array;
   qStep: Int32Array;
+  pScale: Float64Array;
+  qScale: Float64Array;
+  offRe: Float64Array;
+  offIm: Float64Array;
+  /** Below this the element is without voltage. */
+  floor: Float64Array;
+  invNominal: Float64Array;
+  normalLo: Float64Array;
+  normalHi: Float64Array;
+  tolerableLo: Float64Array;
+  tolerableHi: Float64Array;
 }
 
 /** The running figures of several cases at once: the worst over and under so far, and the counts. */
@@ -244,7 +267,7 @@ class CaseAccumulators {
   }
 }
 
-type WatchData = Pick<LoadWatch, 'pScale' | 'qScale' | 'offRe' | 'offIm' | 'nominal' | 'normalLo' | 'normalHi' | 'tolerableLo' | 'tolerableHi' | 'volts'>;
+type WatchData = Pick<LoadWatch, 'volts'>;
 
 /**
  * The loop of LoadWatch.fromBlock, on locals only: for each watched element, x at its two classes in every case
@@ -262,70 +285,87 @@ function readBlock(
   acc: CaseAccumulators,
 ): void {
   const { re: wRe, im: wIm, width, x0Re, x0Im } = block;
-  const { pScale, qScale, offRe, offIm, nominal, normalLo, normalHi, tolerableLo, tolerableHi, volts } = w;
-  const { element, pStep, qStep } = order;
+  const { volts } = w;
+  const { element, pStep, qStep, pScale, qScale, offRe, offIm, floor, invNominal, normalLo, normalHi, tolerableLo, tolerableHi } = order;
   const { over, under, overBeyond, underBeyond, overVolts, underVolts, outside, tolerable, without, xMax } = acc;
   const count = first.length;
   const last = count - 1;
+  // Most blocks hold single-column cases in column order: case c's column is c, and the inner sum is one term.
+  let single = true;
+  for (let c = 0; c < count; c++) if (first[c] !== c || end[c] !== c + 1) single = false;
   for (let e = 0; e < order.count; e++) {
-    const t = element[e];
     const kp = pStep[e];
     const kq = qStep[e];
-    const sp = pScale[t];
-    const sq = qScale[t];
+    const sp = pScale[e];
+    const sq = qScale[e];
     const rowP = kp * width;
     const rowQ = kq * width;
     const x0pr = x0Re[kp];
     const x0pi = x0Im[kp];
     const x0qr = x0Re[kq];
     const x0qi = x0Im[kq];
-    const nom = nominal[t];
-    const floor = WITHOUT_VOLTAGE_FRACTION * nom;
-    const lo = normalLo[t];
-    const hi = normalHi[t];
-    const tLo = tolerableLo[t];
-    const tHi = tolerableHi[t];
+    const oRe = offRe[e];
+    const oIm = offIm[e];
+    const inv = invNominal[e];
+    const bottom = floor[e];
+    const lo = normalLo[e];
+    const hi = normalHi[e];
+    const tLo = tolerableLo[e];
+    const tHi = tolerableHi[e];
     for (let c = 0; c < count; c++) {
       let pr = x0pr;
       let pi = x0pi;
       let qr = x0qr;
       let qi = x0qi;
-      for (let b = first[c], stop = end[c]; b < stop; b++) {
-        const tr = tRe[b];
-        const ti = tIm[b];
-        const apr = wRe[rowP + b];
-        const api = wIm[rowP + b];
-        const aqr = wRe[rowQ + b];
-        const aqi = wIm[rowQ + b];
+      if (single) {
+        const tr = tRe[c];
+        const ti = tIm[c];
+        const apr = wRe[rowP + c];
+        const api = wIm[rowP + c];
+        const aqr = wRe[rowQ + c];
+        const aqi = wIm[rowQ + c];
         pr -= apr * tr - api * ti;
         pi -= apr * ti + api * tr;
         qr -= aqr * tr - aqi * ti;
         qi -= aqr * ti + aqi * tr;
+      } else {
+        for (let b = first[c], stop = end[c]; b < stop; b++) {
+          const tr = tRe[b];
+          const ti = tIm[b];
+          const apr = wRe[rowP + b];
+          const api = wIm[rowP + b];
+          const aqr = wRe[rowQ + b];
+          const aqi = wIm[rowQ + b];
+          pr -= apr * tr - api * ti;
+          pi -= apr * ti + api * tr;
+          qr -= aqr * tr - aqi * ti;
+          qi -= aqr * ti + aqi * tr;
+        }
       }
       const xp = pr * pr + pi * pi;
       const xq = qr * qr + qi * qi;
       const xm = xp > xq ? xp : xq;
       if (xm > xMax[c]) xMax[c] = xm;
-      const re = offRe[t] + sp * pr - sq * qr;
-      const im = offIm[t] + sp * pi - sq * qi;
+      const re = oRe + sp * pr - sq * qr;
+      const im = oIm + sp * pi - sq * qi;
       const v = Math.sqrt(re * re + im * im);
-      if (c === last) volts[t] = v;
-      if (v < floor) {
+      if (c === last) volts[element[e]] = v;
+      if (v < bottom) {
         without[c]++;
         continue;
       }
       if (v < tLo || v > tHi) outside[c]++;
       else if (v < lo || v > hi) tolerable[c]++;
-      const above = (v - hi) / nom;
-      const below = (lo - v) / nom;
+      const above = (v - hi) * inv;
+      const below = (lo - v) * inv;
       if (above > overBeyond[c]) {
         overBeyond[c] = above;
-        over[c] = t;
+        over[c] = element[e];
         overVolts[c] = v;
       }
       if (below > underBeyond[c]) {
         underBeyond[c] = below;
-        under[c] = t;
+        under[c] = element[e];
         underVolts[c] = v;
       }
     }
