@@ -10,7 +10,7 @@ import type { PinClasses } from './classes';
 import type { AssembledSystem } from './assemble';
 import { AndersonMixer } from './anderson';
 import { elementVolts, newtonStep, transferMatrix, type Transfer } from './correction-newton';
-import { wantedCurrent } from './load-law';
+import { wantedCurrentInto } from './load-law';
 
 /** Fixed-point passes tried before Newton on the corrections takes over. */
 const FIXED_POINT_PASSES = 12;
@@ -73,36 +73,54 @@ function baseModel(part: LoadPart): LoadModel {
   return 'mix';
 }
 
+/**
+ * One evaluation of the load laws, entry k of an element at 2k (re) and 2k + 1 (im): typed arrays, because the
+ * iteration evaluates every element of a large sheet on every pass.
+ */
 interface Pass {
   /** The corrections the load law asks for at these voltages. */
-  next: Complex[];
+  next: Float64Array;
   /** next − the corrections that produced these voltages. */
-  residual: Complex[];
-  switched: boolean[];
+  residual: Float64Array;
+  switched: Uint8Array;
+  /** Per element, |residual| as a share of its rated current. */
+  share: Float64Array;
   mismatch: number;
-  worst: number[];
 }
 
-function evaluate(parts: LoadPart[], volts: Complex[], corrections: Complex[], ratedAmps: number[], options: IterationOptions): Pass {
-  const pass: Pass = { next: [], residual: [], switched: [], mismatch: 0, worst: [] };
-  parts.forEach((part, k) => {
-    const v = volts[k];
-    const { current, switched } = wantedCurrent(part, v, options.lowVoltageSwitchFraction);
-    const yv = { re: part.y.re * v.re - part.y.im * v.im, im: part.y.re * v.im + part.y.im * v.re };
-    const next = { re: current.re - yv.re, im: current.im - yv.im };
-    const r = { re: next.re - corrections[k].re, im: next.im - corrections[k].im };
-    const m = ratedAmps[k] > 0 ? Math.hypot(r.re, r.im) / ratedAmps[k] : 0;
+function evaluate(parts: LoadPart[], vRe: Float64Array, vIm: Float64Array, corrections: Float64Array, ratedAmps: Float64Array, options: IterationOptions): Pass {
+  const P = parts.length;
+  const pass: Pass = { next: new Float64Array(2 * P), residual: new Float64Array(2 * P), switched: new Uint8Array(P), share: new Float64Array(P), mismatch: 0 };
+  const { next, residual, switched, share } = pass;
+  const fraction = options.lowVoltageSwitchFraction;
+  for (let k = 0; k < P; k++) {
+    const part = parts[k];
+    const vr = vRe[k];
+    const vi = vIm[k];
+    switched[k] = wantedCurrentInto(part, vr, vi, fraction, next, 2 * k) ? 1 : 0;
+    next[2 * k] -= part.y.re * vr - part.y.im * vi;
+    next[2 * k + 1] -= part.y.re * vi + part.y.im * vr;
+    const rr = (residual[2 * k] = next[2 * k] - corrections[2 * k]);
+    const ri = (residual[2 * k + 1] = next[2 * k + 1] - corrections[2 * k + 1]);
+    const m = ratedAmps[k] > 0 ? Math.hypot(rr, ri) / ratedAmps[k] : 0;
+    share[k] = m;
     pass.mismatch = Number.isFinite(m) ? Math.max(pass.mismatch, m) : Infinity;
-    if (!(m <= options.tolerance)) pass.worst.push(k);
-    pass.next.push(next);
-    pass.residual.push(r);
-    pass.switched.push(switched);
-  });
+  }
   return pass;
 }
 
-const partVolts = (parts: LoadPart[], volts: PinVoltages): Complex[] =>
-  parts.map((p) => ({ re: volts.re[p.p] - volts.re[p.q], im: volts.im[p.p] - volts.im[p.q] }));
+/** The elements whose mismatch is above the tolerance. */
+const worstOf = (pass: Pass, tolerance: number): number[] => [...pass.share].flatMap((m, k) => (m <= tolerance ? [] : [k]));
+
+const toComplex = (c: Float64Array): Complex[] => Array.from({ length: c.length / 2 }, (_, k) => ({ re: c[2 * k], im: c[2 * k + 1] }));
+const fromComplex = (c: Complex[]): Float64Array => {
+  const out = new Float64Array(2 * c.length);
+  c.forEach((v, k) => {
+    out[2 * k] = v.re;
+    out[2 * k + 1] = v.im;
+  });
+  return out;
+};
 
 export function iterateLoads(
   network: BuiltNetwork,
@@ -113,48 +131,58 @@ export function iterateLoads(
 ): IterationOutcome {
   const parts = network.loads;
   const P = parts.length;
-  const ratedAmps = parts.map((p) => Math.hypot(p.ratedVa.re, p.ratedVa.im) / p.ratedVolts);
+  const ratedAmps = Float64Array.from(parts, (p) => Math.hypot(p.ratedVa.re, p.ratedVa.im) / p.ratedVolts);
   const weights = new Float64Array(2 * P);
   ratedAmps.forEach((a, k) => (weights[2 * k] = weights[2 * k + 1] = a > 0 ? 1 / a : 1));
   const failure = (message: string): IterationOutcome => ({ ok: false, message, elementIds: [] });
+  const vRe = new Float64Array(P);
+  const vIm = new Float64Array(P);
 
-  const solveWith = (c: Complex[]): PinVoltages | string => {
+  /** Pin voltages for the corrections c, and each element's voltage into vRe, vIm. */
+  const solveWith = (c: Float64Array): PinVoltages | string => {
     const bRe = system.rhsRe.slice();
     const bIm = system.rhsIm.slice();
-    parts.forEach((part, k) => {
-      const corr = c[k];
-      if (corr.re === 0 && corr.im === 0) return;
+    for (let k = 0; k < P; k++) {
+      const cr = c[2 * k];
+      const ci = c[2 * k + 1];
+      if (cr === 0 && ci === 0) continue;
       // The correction flows p → q through the load: it is drawn from p and returned to q.
-      const cp = classes.classOf[part.p];
-      const cq = classes.classOf[part.q];
+      const cp = classes.classOf[parts[k].p];
+      const cq = classes.classOf[parts[k].q];
       if (cp >= 0) {
-        bRe[cp] -= corr.re * system.scale[cp];
-        bIm[cp] -= corr.im * system.scale[cp];
+        bRe[cp] -= cr * system.scale[cp];
+        bIm[cp] -= ci * system.scale[cp];
       }
       if (cq >= 0) {
-        bRe[cq] += corr.re * system.scale[cq];
-        bIm[cq] += corr.im * system.scale[cq];
+        bRe[cq] += cr * system.scale[cq];
+        bIm[cq] += ci * system.scale[cq];
       }
-    });
+    }
     const solved = solver.solve(bRe, bIm);
     if (!solved.ok) return `the network equations are singular (${solved.message})`;
     if (solved.value.re.length !== classes.classCount) return 'the linear solve returned a vector of the wrong size';
-    return pinVoltages(network, classes, system, solved.value);
+    const volts = pinVoltages(network, classes, system, solved.value);
+    for (let k = 0; k < P; k++) {
+      const { p, q } = parts[k];
+      vRe[k] = volts.re[p] - volts.re[q];
+      vIm[k] = volts.im[p] - volts.im[q];
+    }
+    return volts;
   };
 
-  let corrections: Complex[] = parts.map(() => ({ re: 0, im: 0 }));
+  let corrections: Float64Array = new Float64Array(2 * P);
   const first = solveWith(corrections);
   if (typeof first === 'string') return failure(first);
   const constantImpedanceVolts = first;
   let volts = first;
-  let pass = evaluate(parts, partVolts(parts, volts), corrections, ratedAmps, options);
+  let pass = evaluate(parts, vRe, vIm, corrections, ratedAmps, options);
   let iteration = 1;
   const done = (method: 'fixed-point' | 'newton'): IterationOutcome => ({
     ok: true,
     volts,
     constantImpedanceVolts,
-    corrections,
-    models: parts.map((p, k) => ({ model: baseModel(p), switched: pass.switched[k] })),
+    corrections: toComplex(corrections),
+    models: parts.map((p, k) => ({ model: baseModel(p), switched: pass.switched[k] === 1 })),
     iterations: iteration,
     mismatch: pass.mismatch,
     method,
@@ -164,7 +192,7 @@ export function iterateLoads(
       ok: true,
       volts,
       constantImpedanceVolts,
-      corrections,
+      corrections: toComplex(corrections),
       models: parts.map(() => ({ model: 'constant-impedance' as LoadModel, switched: false })),
       iterations: 1,
       mismatch: 0,
@@ -176,27 +204,17 @@ export function iterateLoads(
   // The fixed point, Anderson-accelerated; a change of switch state changes the map, so the history restarts.
   const mixer = new AndersonMixer(2 * P);
   const fixedPointLimit = P <= NEWTON_MAX_ELEMENTS ? Math.min(FIXED_POINT_PASSES, options.maxIterations) : options.maxIterations;
-  let switchedBefore = pass.switched.join();
+  let switchedBefore = pass.switched;
   while (iteration < fixedPointLimit && Number.isFinite(pass.mismatch) && pass.mismatch < 1e6) {
-    const x = new Float64Array(2 * P);
-    const g = new Float64Array(2 * P);
-    corrections.forEach((c, k) => {
-      x[2 * k] = c.re;
-      x[2 * k + 1] = c.im;
-      g[2 * k] = pass.next[k].re;
-      g[2 * k + 1] = pass.next[k].im;
-    });
-    const mixed = mixer.next(x, g, weights);
-    corrections = parts.map((_, k) => ({ re: mixed[2 * k], im: mixed[2 * k + 1] }));
+    corrections = mixer.next(corrections, pass.next, weights);
     const solved = solveWith(corrections);
     if (typeof solved === 'string') return failure(solved);
     volts = solved;
     iteration++;
-    pass = evaluate(parts, partVolts(parts, volts), corrections, ratedAmps, options);
+    pass = evaluate(parts, vRe, vIm, corrections, ratedAmps, options);
     if (pass.mismatch <= options.tolerance) return done('fixed-point');
-    const switchedNow = pass.switched.join();
-    if (switchedNow !== switchedBefore) mixer.reset();
-    switchedBefore = switchedNow;
+    if (!sameStates(pass.switched, switchedBefore)) mixer.reset();
+    switchedBefore = pass.switched;
   }
 
   // Newton on the corrections with the same factors (the network is linear: v = v0 + T c), started again from
@@ -205,23 +223,24 @@ export function iterateLoads(
     const t = transferMatrix(parts, classes, system, solver);
     if (typeof t === 'string') return failure(t);
     const v0 = partVolts(parts, constantImpedanceVolts);
-    corrections = parts.map(() => ({ re: 0, im: 0 }));
+    let c: Complex[] = parts.map(() => ({ re: 0, im: 0 }));
     let v = v0;
-    pass = evaluate(parts, v, corrections, ratedAmps, options);
+    pass = evaluateAt(parts, v, c, ratedAmps, options);
     while (iteration < options.maxIterations && pass.mismatch > options.tolerance) {
-      const step = newtonStep(parts, v, pass.residual, options.lowVoltageSwitchFraction, t);
+      const step = newtonStep(parts, v, toComplex(pass.residual), options.lowVoltageSwitchFraction, t);
       if (!step) break;
       iteration++;
-      ({ corrections, v, pass } = lineSearch(parts, v0, t, corrections, step, pass, ratedAmps, options));
+      ({ corrections: c, v, pass } = lineSearch(parts, v0, t, c, step, pass, ratedAmps, options));
     }
+    corrections = fromComplex(c);
     const solved = solveWith(corrections);
     if (typeof solved === 'string') return failure(solved);
     volts = solved;
-    pass = evaluate(parts, partVolts(parts, volts), corrections, ratedAmps, options);
+    pass = evaluate(parts, vRe, vIm, corrections, ratedAmps, options);
     if (pass.mismatch <= options.tolerance) return done('newton');
   }
 
-  const ids = [...new Set(pass.worst.map((k) => parts[k].loadId))];
+  const ids = [...new Set(worstOf(pass, options.tolerance).map((k) => parts[k].loadId))];
   return {
     ok: false,
     message:
@@ -232,6 +251,19 @@ export function iterateLoads(
   };
 }
 
+function sameStates(a: Uint8Array, b: Uint8Array): boolean {
+  for (let k = 0; k < a.length; k++) if (a[k] !== b[k]) return false;
+  return true;
+}
+
+const partVolts = (parts: LoadPart[], volts: PinVoltages): Complex[] =>
+  parts.map((p) => ({ re: volts.re[p.p] - volts.re[p.q], im: volts.im[p.p] - volts.im[p.q] }));
+
+/** evaluate() for the Newton path's element voltages and corrections as complex values. */
+function evaluateAt(parts: LoadPart[], v: Complex[], c: Complex[], ratedAmps: Float64Array, options: IterationOptions): Pass {
+  return evaluate(parts, Float64Array.from(v, (x) => x.re), Float64Array.from(v, (x) => x.im), fromComplex(c), ratedAmps, options);
+}
+
 /** Backtracking on the step length until the weighted residual falls (or the step is tiny). */
 function lineSearch(
   parts: LoadPart[],
@@ -240,16 +272,16 @@ function lineSearch(
   corrections: Complex[],
   step: Complex[],
   pass: Pass,
-  ratedAmps: number[],
+  ratedAmps: Float64Array,
   options: IterationOptions,
 ): { corrections: Complex[]; v: Complex[]; pass: Pass } {
-  const norm = (r: Complex[]) => r.reduce((s, x, k) => s + (x.re * x.re + x.im * x.im) / Math.max(ratedAmps[k], 1e-12) ** 2, 0);
+  const norm = (r: Float64Array) => ratedAmps.reduce((s, a, k) => s + (r[2 * k] * r[2 * k] + r[2 * k + 1] * r[2 * k + 1]) / Math.max(a, 1e-12) ** 2, 0);
   const before = norm(pass.residual);
   let alpha = 1;
   for (;;) {
     const trial = corrections.map((c, k) => ({ re: c.re + alpha * step[k].re, im: c.im + alpha * step[k].im }));
     const v = elementVolts(v0, t, trial);
-    const trialPass = evaluate(parts, v, trial, ratedAmps, options);
+    const trialPass = evaluateAt(parts, v, trial, ratedAmps, options);
     if (norm(trialPass.residual) < before || alpha < 1 / 64) return { corrections: trial, v, pass: trialPass };
     alpha /= 2;
   }

@@ -17,29 +17,36 @@ export function switchedAdmittanceFactor(part: LoadPart, fraction: number): numb
   return impedance + current / fraction + power / (fraction * fraction);
 }
 
-export function wantedCurrent(part: LoadPart, v: Complex, fraction: number): { current: Complex; switched: boolean } {
+/**
+ * The wanted current at v = vr + j·vi into out[at], out[at + 1] (no objects: the load iteration calls this for
+ * every element on every pass); true when the element is switched to constant impedance.
+ */
+export function wantedCurrentInto(part: LoadPart, vr: number, vi: number, fraction: number, out: Float64Array, at: number): boolean {
   const y = part.y;
-  const yv = { re: y.re * v.re - y.im * v.im, im: y.re * v.im + y.im * v.re };
-  if (belowSwitch(part, v, fraction)) {
-    const k = switchedAdmittanceFactor(part, fraction);
-    // A pure constant-impedance load is the same either side of the switch: it is not reported as switched.
-    return { current: { re: k * yv.re, im: k * yv.im }, switched: part.behaviour.impedance < 1 };
-  }
-  const mag = Math.hypot(v.re, v.im);
+  const yvRe = y.re * vr - y.im * vi;
+  const yvIm = y.re * vi + y.im * vr;
+  const mag = Math.hypot(vr, vi);
   const { impedance, current, power } = part.behaviour;
-  const sConj = { re: part.ratedVa.re, im: -part.ratedVa.im };
+  if (mag < fraction * part.ratedVolts || mag <= 1e-9 * part.ratedVolts) {
+    const k = switchedAdmittanceFactor(part, fraction);
+    out[at] = k * yvRe;
+    out[at + 1] = k * yvIm;
+    // A pure constant-impedance load is the same either side of the switch: it is not reported as switched.
+    return impedance < 1;
+  }
+  const sRe = part.ratedVa.re;
+  const sIm = -part.ratedVa.im;
   // Constant current: |S|/V_rated at the load's own power-factor angle behind its terminal voltage.
-  const iCurrent = { re: (sConj.re * v.re - sConj.im * v.im) / (part.ratedVolts * mag), im: (sConj.re * v.im + sConj.im * v.re) / (part.ratedVolts * mag) };
+  const rm = part.ratedVolts * mag;
+  const iCurrentRe = (sRe * vr - sIm * vi) / rm;
+  const iCurrentIm = (sRe * vi + sIm * vr) / rm;
   // Constant power: conj(S / v) = conj(S) / conj(v).
-  const d = v.re * v.re + v.im * v.im;
-  const iPower = { re: (sConj.re * v.re - sConj.im * v.im) / d, im: (sConj.re * v.im + sConj.im * v.re) / d };
-  return {
-    current: {
-      re: impedance * yv.re + current * iCurrent.re + power * iPower.re,
-      im: impedance * yv.im + current * iCurrent.im + power * iPower.im,
-    },
-    switched: false,
-  };
+  const d = vr * vr + vi * vi;
+  const iPowerRe = (sRe * vr - sIm * vi) / d;
+  const iPowerIm = (sRe * vi + sIm * vr) / d;
+  out[at] = impedance * yvRe + current * iCurrentRe + power * iPowerRe;
+  out[at + 1] = impedance * yvIm + current * iCurrentIm + power * iPowerIm;
+  return false;
 }
 
 /** Wirtinger derivatives of the wanted current: δw = A δv + B conj(δv). */
