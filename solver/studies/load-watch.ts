@@ -284,7 +284,7 @@ function readBlock(
   end: Int32Array,
   acc: CaseAccumulators,
 ): void {
-  const { re: wRe, im: wIm, width, x0Re, x0Im } = block;
+  const { values: w2, width, x0Re, x0Im } = block;
   const { volts } = w;
   const { element, pStep, qStep, pScale, qScale, offRe, offIm, floor, invNominal, normalLo, normalHi, tolerableLo, tolerableHi } = order;
   const { over, under, overBeyond, underBeyond, overVolts, underVolts, outside, tolerable, without, xMax } = acc;
@@ -298,8 +298,8 @@ function readBlock(
     const kq = qStep[e];
     const sp = pScale[e];
     const sq = qScale[e];
-    const rowP = kp * width;
-    const rowQ = kq * width;
+    const rowP = 2 * kp * width;
+    const rowQ = 2 * kq * width;
     const x0pr = x0Re[kp];
     const x0pi = x0Im[kp];
     const x0qr = x0Re[kq];
@@ -320,10 +320,10 @@ function readBlock(
       if (single) {
         const tr = tRe[c];
         const ti = tIm[c];
-        const apr = wRe[rowP + c];
-        const api = wIm[rowP + c];
-        const aqr = wRe[rowQ + c];
-        const aqi = wIm[rowQ + c];
+        const apr = w2[rowP + 2 * c];
+        const api = w2[rowP + 2 * c + 1];
+        const aqr = w2[rowQ + 2 * c];
+        const aqi = w2[rowQ + 2 * c + 1];
         pr -= apr * tr - api * ti;
         pi -= apr * ti + api * tr;
         qr -= aqr * tr - aqi * ti;
@@ -332,10 +332,10 @@ function readBlock(
         for (let b = first[c], stop = end[c]; b < stop; b++) {
           const tr = tRe[b];
           const ti = tIm[b];
-          const apr = wRe[rowP + b];
-          const api = wIm[rowP + b];
-          const aqr = wRe[rowQ + b];
-          const aqi = wIm[rowQ + b];
+          const apr = w2[rowP + 2 * b];
+          const api = w2[rowP + 2 * b + 1];
+          const aqr = w2[rowQ + 2 * b];
+          const aqi = w2[rowQ + 2 * b + 1];
           pr -= apr * tr - api * ti;
           pi -= apr * ti + api * tr;
           qr -= aqr * tr - aqi * ti;

@@ -63,13 +63,12 @@ export interface BlockCase {
 }
 
 /**
- * Openings solved together: W interleaved by pivot step (step k of column b at k·width + b), x0 by step; both
- * have a last row n, zero, for the reference.
+ * Openings solved together: W interleaved by pivot step (step k of column b at 2(k·width + b), real then
+ * imaginary), x0 by step; both have a last row n, zero, for the reference.
  */
 export interface OpeningBlock {
   width: number;
-  re: Float64Array;
-  im: Float64Array;
+  values: Float64Array;
   /** Class → pivot step. */
   place: Int32Array;
   x0Re: Float64Array;
@@ -92,8 +91,8 @@ interface BlockBase {
 /** W[c, column] (zero for the reference, c = −1). */
 function blockValueOfColumn(block: OpeningBlock, c: number, column: number): { re: number; im: number } {
   if (c < 0) return { re: 0, im: 0 };
-  const p = block.place[c] * block.width + column;
-  return { re: block.re[p], im: block.im[p] };
+  const p = 2 * (block.place[c] * block.width + column);
+  return { re: block.values[p], im: block.values[p + 1] };
 }
 
 /** x[c] of one opening of a block (zero for the reference). */
@@ -102,9 +101,10 @@ export function blockValue(block: OpeningBlock, c: BlockCase, cls: number): { re
   const k = block.place[cls];
   let re = block.x0Re[k];
   let im = block.x0Im[k];
-  for (let b = 0, p = k * block.width + c.offset; b < c.update.m; b++, p++) {
-    re -= block.re[p] * c.tRe[b] - block.im[p] * c.tIm[b];
-    im -= block.re[p] * c.tIm[b] + block.im[p] * c.tRe[b];
+  const w = block.values;
+  for (let b = 0, p = 2 * (k * block.width + c.offset); b < c.update.m; b++, p += 2) {
+    re -= w[p] * c.tRe[b] - w[p + 1] * c.tIm[b];
+    im -= w[p] * c.tIm[b] + w[p + 1] * c.tRe[b];
   }
   return { re, im };
 }
@@ -127,8 +127,7 @@ export class OpeningSolver {
   /** The base matrix without its explicit zeros, and its own factors (sparser: see the constructor). */
   readonly matrix: ComplexCsc;
   private readonly lu: NumericLu;
-  private readonly blockRe: Float64Array;
-  private readonly blockIm: Float64Array;
+  private readonly blockValues: Float64Array;
 
   constructor(
     readonly network: BuiltNetwork,
@@ -148,8 +147,7 @@ export class OpeningSolver {
     [this.tmpRe, this.tmpIm, this.unitRe, this.unitIm, this.rRe, this.rIm, this.bRe, this.bIm] = Array.from({ length: 8 }, () => new Float64Array(this.n));
     this.aNorm = maxOf(cachedRowAbsSums(this.matrix));
     // One more row than unknowns: the reference's, always zero, so that a reader needs no test for it.
-    this.blockRe = new Float64Array((this.n + 1) * BLOCK_COLUMNS);
-    this.blockIm = new Float64Array((this.n + 1) * BLOCK_COLUMNS);
+    this.blockValues = new Float64Array(2 * (this.n + 1) * BLOCK_COLUMNS);
   }
 
   /** The update that opens conductor `index` of a run, or undefined when it is open already or changes nothing. */
@@ -480,32 +478,30 @@ export class OpeningSolver {
     const base = this.baseFor(bRe, bIm, x0);
     const width = updates.reduce((w, u) => w + u.m, 0);
     if (width > BLOCK_COLUMNS) throw new RangeError(`a block holds at most ${BLOCK_COLUMNS} columns, not ${width}`);
-    const { lu, blockRe, blockIm } = this;
-    blockRe.fill(0, 0, (this.n + 1) * width);
-    blockIm.fill(0, 0, (this.n + 1) * width);
+    const { lu, blockValues } = this;
+    blockValues.fill(0, 0, 2 * (this.n + 1) * width);
     let column = 0;
     let firstRow = this.n;
     for (const u of updates) {
       for (let a = 0; a < u.m; a++, column++) {
         if (u.fromClass[a] >= 0) {
           const row = lu.rowPivot[u.fromClass[a]];
-          blockRe[row * width + column] += u.fromScale[a];
+          blockValues[2 * (row * width + column)] += u.fromScale[a];
           firstRow = Math.min(firstRow, row);
         }
         if (u.toClass[a] >= 0) {
           const row = lu.rowPivot[u.toClass[a]];
-          blockRe[row * width + column] -= u.toScale[a];
+          blockValues[2 * (row * width + column)] -= u.toScale[a];
           firstRow = Math.min(firstRow, row);
         }
       }
     }
     const dots = base.probes.weights();
-    lowerSolveBlockInPlace(lu, blockRe, blockIm, width, firstRow, dots);
-    upperSolveBlockInPlace(lu, blockRe, blockIm, width);
+    lowerSolveBlockInPlace(lu, blockValues, width, firstRow, dots);
+    upperSolveBlockInPlace(lu, blockValues, width);
     const block: OpeningBlock = {
       width,
-      re: blockRe,
-      im: blockIm,
+      values: blockValues,
       place: lu.colOrderInverse,
       x0Re: base.x0Re,
       x0Im: base.x0Im,

@@ -22,24 +22,23 @@ describe('block triangular solves agree with mathjs lusolve', () => {
         v.re[(7 * b + 3) % nodes] = -1;
         return v;
       });
-      const yRe = new Float64Array(nodes * width);
-      const yIm = new Float64Array(nodes * width);
+      const y = new Float64Array(2 * nodes * width);
       columns.forEach((c, b) => {
         for (let i = 0; i < nodes; i++) {
-          yRe[lu.rowPivot[i] * width + b] = c.re[i];
-          yIm[lu.rowPivot[i] * width + b] = c.im[i];
+          y[2 * (lu.rowPivot[i] * width + b)] = c.re[i];
+          y[2 * (lu.rowPivot[i] * width + b) + 1] = c.im[i];
         }
       });
       // g by pivot step; given U⁻ᵀg as weights, the forward substitution's sums must be Σ_k g_k x_k of each solved column
       const g = { re: Float64Array.from({ length: nodes }, () => rng()), im: Float64Array.from({ length: nodes }, () => rng()) };
       const weight = { ...upperTransposeSolve(lu, g.re, g.im), sumRe: new Float64Array(width), sumIm: new Float64Array(width) };
-      lowerSolveBlockInPlace(lu, yRe, yIm, width, 0, [weight]);
-      upperSolveBlockInPlace(lu, yRe, yIm, width);
+      lowerSolveBlockInPlace(lu, y, width, 0, [weight]);
+      upperSolveBlockInPlace(lu, y, width);
       columns.forEach((c, b) => {
         const x = { re: new Float64Array(nodes), im: new Float64Array(nodes) };
         for (let k = 0; k < nodes; k++) {
-          x.re[lu.colOrder[k]] = yRe[k * width + b];
-          x.im[lu.colOrder[k]] = yIm[k * width + b];
+          x.re[lu.colOrder[k]] = y[2 * (k * width + b)];
+          x.im[lu.colOrder[k]] = y[2 * (k * width + b) + 1];
         }
         // source: mathjs lusolve as independent dense reference
         const expected = mathjsSolve(a, c.re, c.im);
