@@ -13,5 +13,6 @@ export { loadingStudy, loadingStudyOf, LOADING_STUDY_NOTES } from './studies';
 export type * from './studies/types';
 export { SOLVER_VERSION } from './version';
 export { breakSweep, breakSweepSync } from './studies/break-sweep';
+export { breakSweepInShares, shareOptions, type ShareRunner } from './studies/shared-sweep';
 export { readingsMatch, readingsMatchSync } from './studies/readings-match';
 export type * from './studies/study-types';

@@ -51,6 +51,10 @@ export class BreakSweeper implements SlicedStudy<BreakSweepResult> {
   readonly cases: BreakCase[] = [];
   private next = 0;
   private refineQueue?: number[];
+  /** Cases of the other shares, added by absorb(), counted in the total. */
+  private absorbed = 0;
+  /** Set while the other shares' cases are awaited: the refinement must rank them too. */
+  private holding = false;
   private readonly x0: ComplexVector;
   private readonly out: ComplexVector;
   private readonly openedRe: Float64Array;
@@ -80,6 +84,10 @@ export class BreakSweeper implements SlicedStudy<BreakSweepResult> {
   }
 
   static prepare(sheet: Sheet, options: BreakSweepOptions = {}): StudyOutcome<BreakSweeper> {
+    const share = options.share;
+    if (share && !(Number.isInteger(share.count) && share.count >= 1 && Number.isInteger(share.index) && share.index >= 0 && share.index < share.count)) {
+      return { ok: false, error: { code: 'internal', message: `a sweep share must be index 0 to count − 1 of a whole count, not ${share.index} of ${share.count}`, elementIds: [] } };
+    }
     const network = buildNetwork(sheet, NO_MODIFICATIONS);
     const outcome = solveBuiltNetwork(network, sheet.settings);
     if (!outcome.ok) return { ok: false, error: { ...outcome.error, message: `the base case does not solve: ${outcome.error.message}` } };
@@ -94,14 +102,36 @@ export class BreakSweeper implements SlicedStudy<BreakSweepResult> {
         work.push({ run, conductor });
       }),
     );
+    const mine = share ? work.filter((_, i) => i % share.count === share.index) : work;
     const solver = new OpeningSolver(network, solution.classes, solution.system);
     const model = options.loadModel ?? 'constant-impedance';
     const refine = model === 'constant-impedance' ? Math.max(0, Math.floor(options.refineWorst ?? DEFAULT_REFINE_WORST)) : 0;
-    return { ok: true, value: new BreakSweeper(sheet, network, solution, factorization, solver, watch, work, model, refine, options.rankBy ?? 'severity', watch.fromPins(solution.volts)) };
+    return { ok: true, value: new BreakSweeper(sheet, network, solution, factorization, solver, watch, mine, model, refine, options.rankBy ?? 'severity', watch.fromPins(solution.volts)) };
   }
 
   get finished(): boolean {
     return this.next >= this.work.length && this.refineQueue !== undefined && this.refineQueue.length === 0;
+  }
+
+  /** This sweeper's own cases are done and the refinement has not begun. */
+  get swept(): boolean {
+    return this.next >= this.work.length && this.refineQueue === undefined;
+  }
+
+  /** Stops before the refinement until release(): the cases of other shares are to be added first. */
+  hold(): void {
+    this.holding = true;
+  }
+
+  /** Adds the cases another share swept (before the refinement, which then ranks every case). */
+  absorb(cases: readonly BreakCase[], total: number): void {
+    if (this.refineQueue) throw new RangeError('cases can only be added before the refinement begins');
+    this.cases.push(...cases);
+    this.absorbed += total;
+  }
+
+  release(): void {
+    this.holding = false;
   }
 
   /** Cases done, counting the refinements. */
@@ -115,7 +145,7 @@ export class BreakSweeper implements SlicedStudy<BreakSweepResult> {
   }
 
   private get refineTarget(): number {
-    return Math.min(this.refineWorst, this.work.length);
+    return Math.min(this.refineWorst, this.work.length + this.absorbed);
   }
 
   progress(): StudyProgress {
@@ -126,7 +156,7 @@ export class BreakSweeper implements SlicedStudy<BreakSweepResult> {
   runSlice(ms: number, signal?: AbortSignal): void {
     const end = now() + ms;
     do {
-      if (signal?.aborted || this.finished) return;
+      if (signal?.aborted || this.finished || (this.holding && this.swept)) return;
       this.step();
     } while (now() < end);
   }
@@ -282,7 +312,7 @@ export class BreakSweeper implements SlicedStudy<BreakSweepResult> {
     return {
       cases,
       base: this.base,
-      total: this.work.length,
+      total: this.work.length + this.absorbed,
       cancelled,
       standard: standardLabel(this.sheet.settings),
       assumptions: [

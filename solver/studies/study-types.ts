@@ -56,6 +56,14 @@ export interface BreakSweepOptions extends StudyRunOptions {
   rankBy?: BreakRanking;
   /** With the constant-impedance model: how many of the worst cases to solve again with the sheet's load laws (default 10). */
   refineWorst?: number;
+  /** Sweep only every count-th case from the index-th (a share of a sweep split across threads; see shared-sweep.ts). */
+  share?: SweepShare;
+}
+
+/** Which share of the cases a sweep takes: case i of the full list when i mod count = index. */
+export interface SweepShare {
+  index: number;
+  count: number;
 }
 
 export interface BreakCase {
