@@ -4,7 +4,8 @@
 import { cpus, loadavg } from 'node:os';
 import { performance } from 'node:perf_hooks';
 import { SHUNT_FAULT_TYPES } from '../../shared/sheet';
-import { breakSweepSync, faultStudy, solveFault, solveSheet } from '../index';
+import { breakSweepInShares, breakSweepSync, faultStudy, solveFault, solveSheet } from '../index';
+import { ShareThreads } from './share-threads';
 import { buildingSheet } from './building-sheet';
 import { BreakSweeper } from '../studies/break-sweep';
 import { OpeningSolver } from '../studies/opening-solver';
@@ -24,7 +25,7 @@ function timed<T>(fn: () => T): { ms: number; cpu: number; value: T } {
 const load = (): string => loadavg().map((v) => v.toFixed(1)).join(' / ');
 const ms = (v: number): string => (v < 10 ? v.toFixed(2) : v < 100 ? v.toFixed(1) : v.toFixed(0));
 
-export function studyBench(buses = 1_000): void {
+export async function studyBench(buses = 1_000): Promise<void> {
   console.log(`\nStudies on a generated 208Y/120 building sheet of ${buses} buses (solver/bench/building-sheet.ts) — ${cpus().length} cores`);
   console.log(`load average (1 / 5 / 15 min) at start: ${load()}; the machine is shared, so CPU time is printed beside wall time.`);
   const sheet = buildingSheet(buses);
@@ -79,6 +80,39 @@ export function studyBench(buses = 1_000): void {
         `  one opening solved as a fresh what-if: ${ms(fresh.ms)} ms; the sweep did ${s.total} for ${(sweep.ms / fresh.ms).toFixed(1)} of those ` +
           `(${((fresh.ms * s.total) / sweep.ms).toFixed(0)}× faster than solving each afresh)`,
       );
+    }
+  }
+
+  // The same sweep split over the machine's cores: share 0 here, the others on worker threads started and warmed
+  // before the clock (as a server's pool would be); each share builds and factors the base case itself.
+  const shares = Math.min(4, cpus().length);
+  if (shares >= 2) {
+    const pool = new ShareThreads(shares - 1);
+    try {
+      const warmed = await breakSweepInShares(warm, { refineWorst: 2 }, shares, pool.runner(warm));
+      if (!warmed.ok) throw new Error(warmed.error.message);
+      for (const refineWorst of [0, 10]) {
+        const runs: { ms: number; cpu: number }[] = [];
+        let total = 0;
+        let worst = '';
+        for (let run = 0; run < 3; run++) {
+          const c0 = cpuMs();
+          const t0 = performance.now();
+          const out = await breakSweepInShares(sheet, { refineWorst }, shares, pool.runner(sheet));
+          runs.push({ ms: performance.now() - t0, cpu: cpuMs() - c0 });
+          if (!out.ok) throw new Error(out.error.message);
+          total = out.value.total;
+          worst = `${out.value.cases[0].runId} ${out.value.cases[0].conductor}`;
+        }
+        const best = Math.min(...runs.map((r) => r.ms));
+        console.log(
+          `break sweep in ${shares} shares (${shares - 1} worker thread${shares > 2 ? 's' : ''} + this one)${refineWorst ? `, worst ${refineWorst} again with the load laws` : ', constant-impedance cases'}: ` +
+            `${total} cases in ${runs.map((r) => ms(r.ms)).join(', ')} ms wall over 3 runs, best ${ms(best)} (target < 2000 ms: ${best < 2000 ? 'met' : 'NOT met'}); ` +
+            `this thread's CPU ${runs.map((r) => ms(r.cpu)).join(', ')} ms; worst ${worst}`,
+        );
+      }
+    } finally {
+      await pool.close();
     }
   }
 
