@@ -2,14 +2,25 @@
 // no worker, on the main thread. Progress is sent at most every 250 ms (and at the end), not after every case: each
 // message redraws the studies panel, and on a big sheet a redraw can take longer than 50 ms, so faster messages
 // queued up behind one another and held the answer back.
-import { breakSweepSync, faultStudy, readingsMatchSync, type SolveFailure } from '../../solver';
+import { breakSweepInShares, breakSweepSync, faultStudy, readingsMatchSync, type SolveFailure } from '../../solver';
 import type { StudyDone, StudyMessage, StudyRequest } from './study-request';
+import { sharesFor, workerShareRunner, type ShareWorkerLike } from './sweep-shares';
 
 const PROGRESS_EVERY_MS = 250;
 
 type Outcome = { ok: true; result: StudyDone['result'] } | { ok: false; error: SolveFailure };
 
-export function runStudy(request: StudyRequest, post: (message: StudyMessage) => void, shouldCancel?: () => boolean): void {
+/** Where helper workers can be started (in the study worker): a big sweep is then split across them. */
+export interface StudyHelpers {
+  cores: number | undefined;
+  makeWorker: () => ShareWorkerLike;
+}
+
+/**
+ * Runs the request and posts its progress and answer. Synchronous, except a break sweep split across helper
+ * workers, which returns a promise that settles once the answer is posted.
+ */
+export function runStudy(request: StudyRequest, post: (message: StudyMessage) => void, shouldCancel?: () => boolean, helpers?: StudyHelpers): void | Promise<void> {
   const started = performance.now();
   let lastPost = -Infinity;
   const onProgress = (done: number, total: number) => {
@@ -26,6 +37,19 @@ export function runStudy(request: StudyRequest, post: (message: StudyMessage) =>
     if (shouldCancel?.()) controller?.abort();
     onProgress(done, total);
   };
+  const finish = (out: Outcome) => {
+    const ms = performance.now() - started;
+    if (!out.ok) post({ type: 'study-failed', id: request.id, error: out.error });
+    else post({ type: 'study-done', id: request.id, study: request.study, result: out.result, ms } as StudyDone);
+  };
+  const failed = (error: unknown) =>
+    post({ type: 'study-failed', id: request.id, error: { code: 'internal', message: `the study failed unexpectedly: ${(error as Error).message}`, elementIds: [] } });
+  const shares = request.study === 'break-sweep' && helpers ? sharesFor(request.sheet, helpers.cores) : 1;
+  if (request.study === 'break-sweep' && helpers && shares > 1) {
+    return breakSweepInShares(request.sheet, { conductors: request.conductors, onProgress: progress, signal }, shares, workerShareRunner(request.sheet, helpers.makeWorker))
+      .then((r) => finish(r.ok ? { ok: true, result: r.value } : r))
+      .catch(failed);
+  }
   try {
     let out: Outcome;
     if (request.study === 'fault') {
@@ -38,10 +62,8 @@ export function runStudy(request: StudyRequest, post: (message: StudyMessage) =>
       const r = readingsMatchSync(request.sheet, request.readings, { conductors: request.conductors, onProgress: progress, signal });
       out = r.ok ? { ok: true, result: r.value } : r;
     }
-    const ms = performance.now() - started;
-    if (!out.ok) post({ type: 'study-failed', id: request.id, error: out.error });
-    else post({ type: 'study-done', id: request.id, study: request.study, result: out.result, ms } as StudyDone);
+    finish(out);
   } catch (error) {
-    post({ type: 'study-failed', id: request.id, error: { code: 'internal', message: `the study failed unexpectedly: ${(error as Error).message}`, elementIds: [] } });
+    failed(error);
   }
 }
