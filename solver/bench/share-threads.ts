@@ -16,8 +16,10 @@ export class ShareThreads {
 
   /** The runner for breakSweepInShares on `sheet`: share i goes to thread i − 1. */
   runner(sheet: Sheet): ShareRunner {
-    return (share, options, onProgress) =>
-      new Promise((resolve, reject) => {
+    // A thread runs without this one's event loop: a share is under way as soon as it is posted.
+    return (share, options, onProgress) => ({
+      started: Promise.resolve(),
+      outcome: new Promise((resolve, reject) => {
         const thread = this.threads[share.index - 1];
         if (!thread) return reject(new Error(`no thread for share ${share.index}`));
         const onMessage = (m: FromShareThread) => {
@@ -31,7 +33,8 @@ export class ShareThreads {
         // Functions do not cross to a thread; the signal stays here (share 0 stops, the others finish unread).
         const { onProgress: _p, signal: _s, ...plain } = options;
         thread.postMessage({ sheet, options: plain });
-      });
+      }),
+    });
   }
 
   async close(): Promise<void> {

@@ -7,8 +7,18 @@ import { BreakSweeper, breakSweepSync } from './break-sweep';
 import { DEFAULT_SLICE_MS } from './run-study';
 import type { BreakSweepOptions, BreakSweepResult, StudyOutcome, SweepShare } from './study-types';
 
-/** Sweeps one share elsewhere (its own refinement off), reporting its progress; resolves with its cases. */
-export type ShareRunner = (share: SweepShare, options: BreakSweepOptions, onProgress: (done: number, total: number) => void) => Promise<StudyOutcome<BreakSweepResult>>;
+/**
+ * Sweeps one share elsewhere (its own refinement off), reporting its progress: `started` settles once the share is
+ * under way there, `outcome` with its cases.
+ */
+export type ShareRunner = (
+  share: SweepShare,
+  options: BreakSweepOptions,
+  onProgress: (done: number, total: number) => void,
+) => { started: Promise<void>; outcome: Promise<StudyOutcome<BreakSweepResult>> };
+
+/** How long share 0 waits for the others to be under way before it starts its own. */
+const START_WAIT_MS = 3000;
 
 /** The options a share runs with: the caller's, its share, and no refinement (share 0 refines them all). */
 export function shareOptions(options: BreakSweepOptions, share: SweepShare): BreakSweepOptions {
@@ -29,13 +39,28 @@ export async function breakSweepInShares(sheet: Sheet, options: BreakSweepOption
     const total = progress.reduce((s, p) => s + (p.total || progress[0].total), 0);
     options.onProgress?.({ done, total });
   };
-  const others = Array.from({ length: count - 1 }, (_, i) => {
+  const runs = Array.from({ length: count - 1 }, (_, i) => {
     const share = { index: i + 1, count };
-    return runShare(share, shareOptions(options, share), (done, total) => {
-      progress[share.index] = { done, total };
-      report();
-    }).catch((error: unknown): StudyOutcome<BreakSweepResult> => ({ ok: false, error: { code: 'internal', message: String((error as Error)?.message ?? error), elementIds: [] } }));
+    try {
+      return runShare(share, shareOptions(options, share), (done, total) => {
+        progress[share.index] = { done, total };
+        report();
+      });
+    } catch (error) {
+      return { started: Promise.resolve(), outcome: Promise.reject(error) };
+    }
   });
+  const others = runs.map((r) =>
+    r.outcome.catch((error: unknown): StudyOutcome<BreakSweepResult> => ({ ok: false, error: { code: 'internal', message: String((error as Error)?.message ?? error), elementIds: [] } })),
+  );
+  // A worker started from a worker may need this thread's event loop to get going (a browser's nested worker
+  // does): wait until each has begun (or failed, or a few seconds passed) before sweeping here.
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  await Promise.race([
+    Promise.all(runs.map((r, i) => Promise.race([r.started.catch(() => undefined), others[i]]))),
+    new Promise<void>((resolve) => (timer = setTimeout(resolve, START_WAIT_MS))),
+  ]);
+  clearTimeout(timer);
   try {
     const prepared = BreakSweeper.prepare(sheet, { ...options, share: { index: 0, count } });
     if (!prepared.ok) return prepared;

@@ -17,10 +17,10 @@ function fixture(name: string): Sheet {
 const key = (c: BreakCase) => `${c.runId} ${c.conductor}`;
 
 /** Shares run in this thread, one after another, as another thread would run them. */
-const hereInTurn: ShareRunner = async (_share, options, onProgress) => {
-  await Promise.resolve();
-  return breakSweepSync(sheetUnderTest, { ...options, onProgress: (p) => onProgress(p.done, p.total) });
-};
+const hereInTurn: ShareRunner = (_share, options, onProgress) => ({
+  started: Promise.resolve(),
+  outcome: Promise.resolve().then(() => breakSweepSync(sheetUnderTest, { ...options, onProgress: (p) => onProgress(p.done, p.total) })),
+});
 let sheetUnderTest: Sheet;
 
 function expectSameSweep(split: BreakSweepResult, whole: BreakSweepResult) {
@@ -66,9 +66,9 @@ describe('break sweep in shares', () => {
     const whole = breakSweepSync(sheetUnderTest, { refineWorst: 4 });
     if (!whole.ok) throw new Error(whole.error.message);
     let asked = 0;
-    const failing: ShareRunner = async (share, options, onProgress) => {
+    const failing: ShareRunner = (share, options, onProgress) => {
       asked++;
-      if (share.index === 1) throw new Error('the helper thread did not start');
+      if (share.index === 1) return { started: new Promise<void>(() => {}), outcome: Promise.reject(new Error('the helper thread did not start')) };
       return hereInTurn(share, options, onProgress);
     };
     const split = await breakSweepInShares(sheetUnderTest, { refineWorst: 4 }, 3, failing);

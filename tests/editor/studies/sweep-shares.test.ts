@@ -1,6 +1,6 @@
 // A big break sweep as the study worker runs it with helper workers (here in-process ones that hand their messages
-// over a task apart, as a real worker does): the same answer as the one-thread sweep, one helper per extra core,
-// each ended once it has answered; a helper that does not start leaves its share to the study worker; and small
+// over a task apart, as a real worker does): the same answer as the one-thread sweep, a share per two cores,
+// each helper ended once it has answered; a helper that does not start leaves its share to the study worker; and small
 // sheets, or a single core, do not split.
 import { describe, expect, it } from 'vitest';
 import { breakSweepSync, type BreakSweepResult } from '../../../solver';
@@ -46,19 +46,21 @@ describe('break sweep across helper workers', () => {
   const sheet = buildingSheet(SHARED_SWEEP_MIN_RUNS + 20, 2);
 
   it('splits by core count only for big sheets', () => {
-    expect(sharesFor(sheet, 2)).toBe(2);
+    expect(sharesFor(sheet, 2)).toBe(1);
+    expect(sharesFor(sheet, 4)).toBe(2);
     expect(sharesFor(sheet, 8)).toBe(4);
+    expect(sharesFor(sheet, 16)).toBe(4);
     expect(sharesFor(sheet, 1)).toBe(1);
     expect(sharesFor(sheet, undefined)).toBe(1);
     expect(sharesFor(demoSheet('larkspur-row.json'), 8)).toBe(1);
   });
 
   for (const broken of [false, true]) {
-    it(broken ? 'a helper that does not start leaves its share to the study worker' : 'two cores: one helper, the one-thread answer', async () => {
+    it(broken ? 'a helper that does not start leaves its share to the study worker' : 'four cores: one helper, the one-thread answer', async () => {
       const log: string[] = [];
       const messages: StudyMessage[] = [];
       await runStudy({ type: 'study', study: 'break-sweep', id: 7, sheet, conductors: 'all' }, (m) => messages.push(m), undefined, {
-        cores: 2,
+        cores: 4,
         makeWorker: () => helperWorker(log, broken),
       });
       const done = messages.at(-1);
