@@ -19,25 +19,43 @@ export interface StepWeights {
 
 /**
  * Y ← L⁻¹ Y for an interleaved block of `width` columns; a row that is zero in every column is skipped. Each
- * weighting given gets Σ_j v_j y_j per column, taken while row j is final (see StepWeights).
+ * weighting given gets Σ_j v_j y_j per column, taken while row j is final (see StepWeights). Given the rows where
+ * Y starts nonzero, the rows reached are marked as the elimination goes instead of each row being read for zeros
+ * (an opening's pair of unit entries reaches a few dozen of thousands).
  */
-export function lowerSolveBlockInPlace(lu: NumericLu, y: Float64Array, width: number, firstRow = 0, weights: readonly StepWeights[] = []): void {
+export function lowerSolveBlockInPlace(
+  lu: NumericLu,
+  y: Float64Array,
+  width: number,
+  firstRow = 0,
+  weights: readonly StepWeights[] = [],
+  seedRows?: readonly number[],
+): void {
   const { n, lColPtr, lRowIdx, lRe, lIm } = lu;
   const w2 = 2 * width;
   for (const w of weights) {
     w.sumRe.fill(0, 0, width);
     w.sumIm.fill(0, 0, width);
   }
+  let reached: Uint8Array | undefined;
+  if (seedRows) {
+    reached = new Uint8Array(n);
+    for (const r of seedRows) reached[r] = 1;
+  }
   for (let j = firstRow; j < n; j++) {
     const jb = j * w2;
-    let any = false;
-    for (let o = 0; o < w2; o++) {
-      if (y[jb + o] !== 0) {
-        any = true;
-        break;
+    if (reached) {
+      if (reached[j] === 0) continue;
+    } else {
+      let any = false;
+      for (let o = 0; o < w2; o++) {
+        if (y[jb + o] !== 0) {
+          any = true;
+          break;
+        }
       }
+      if (!any) continue;
     }
-    if (!any) continue;
     for (const w of weights) {
       const wr = w.re[j];
       const wi = w.im[j];
@@ -50,7 +68,9 @@ export function lowerSolveBlockInPlace(lu: NumericLu, y: Float64Array, width: nu
       }
     }
     for (let p = lColPtr[j], end = lColPtr[j + 1]; p < end; p++) {
-      const rb = lRowIdx[p] * w2;
+      const row = lRowIdx[p];
+      if (reached) reached[row] = 1;
+      const rb = row * w2;
       const lr = lRe[p];
       const li = lIm[p];
       for (let o = 0; o < w2; o += 2) {

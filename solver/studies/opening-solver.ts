@@ -482,22 +482,25 @@ export class OpeningSolver {
     blockValues.fill(0, 0, 2 * (this.n + 1) * width);
     let column = 0;
     let firstRow = this.n;
+    const seeds: number[] = [];
     for (const u of updates) {
       for (let a = 0; a < u.m; a++, column++) {
         if (u.fromClass[a] >= 0) {
           const row = lu.rowPivot[u.fromClass[a]];
           blockValues[2 * (row * width + column)] += u.fromScale[a];
           firstRow = Math.min(firstRow, row);
+          seeds.push(row);
         }
         if (u.toClass[a] >= 0) {
           const row = lu.rowPivot[u.toClass[a]];
           blockValues[2 * (row * width + column)] -= u.toScale[a];
           firstRow = Math.min(firstRow, row);
+          seeds.push(row);
         }
       }
     }
     const dots = base.probes.weights();
-    lowerSolveBlockInPlace(lu, blockValues, width, firstRow, dots);
+    lowerSolveBlockInPlace(lu, blockValues, width, firstRow, dots, seeds);
     upperSolveBlockInPlace(lu, blockValues, width);
     const block: OpeningBlock = {
       width,

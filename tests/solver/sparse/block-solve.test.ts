@@ -32,7 +32,13 @@ describe('block triangular solves agree with mathjs lusolve', () => {
       // g by pivot step; given U⁻ᵀg as weights, the forward substitution's sums must be Σ_k g_k x_k of each solved column
       const g = { re: Float64Array.from({ length: nodes }, () => rng()), im: Float64Array.from({ length: nodes }, () => rng()) };
       const weight = { ...upperTransposeSolve(lu, g.re, g.im), sumRe: new Float64Array(width), sumIm: new Float64Array(width) };
+      // the same forward substitution told where the block starts nonzero must give the same rows, bit for bit
+      const seeds: number[] = [];
+      for (let i = 0; i < nodes; i++) for (let b = 0; b < width; b++) if (y[2 * (i * width + b)] !== 0 || y[2 * (i * width + b) + 1] !== 0) seeds.push(i);
+      const seeded = y.slice();
       lowerSolveBlockInPlace(lu, y, width, 0, [weight]);
+      lowerSolveBlockInPlace(lu, seeded, width, 0, [], seeds);
+      expect(seeded).toEqual(y);
       upperSolveBlockInPlace(lu, y, width);
       columns.forEach((c, b) => {
         const x = { re: new Float64Array(nodes), im: new Float64Array(nodes) };
