@@ -290,9 +290,6 @@ function readBlock(
   const { over, under, overBeyond, underBeyond, overVolts, underVolts, outside, tolerable, without, xMax } = acc;
   const count = first.length;
   const last = count - 1;
-  // Most blocks hold single-column cases in column order: case c's column is c, and the inner sum is one term.
-  let single = true;
-  for (let c = 0; c < count; c++) if (first[c] !== c || end[c] !== c + 1) single = false;
   for (let e = 0; e < order.count; e++) {
     const kp = pStep[e];
     const kq = qStep[e];
@@ -317,30 +314,17 @@ function readBlock(
       let pi = x0pi;
       let qr = x0qr;
       let qi = x0qi;
-      if (single) {
-        const tr = tRe[c];
-        const ti = tIm[c];
-        const apr = w2[rowP + 2 * c];
-        const api = w2[rowP + 2 * c + 1];
-        const aqr = w2[rowQ + 2 * c];
-        const aqi = w2[rowQ + 2 * c + 1];
+      for (let b = first[c], stop = end[c]; b < stop; b++) {
+        const tr = tRe[b];
+        const ti = tIm[b];
+        const apr = w2[rowP + 2 * b];
+        const api = w2[rowP + 2 * b + 1];
+        const aqr = w2[rowQ + 2 * b];
+        const aqi = w2[rowQ + 2 * b + 1];
         pr -= apr * tr - api * ti;
         pi -= apr * ti + api * tr;
         qr -= aqr * tr - aqi * ti;
         qi -= aqr * ti + aqi * tr;
-      } else {
-        for (let b = first[c], stop = end[c]; b < stop; b++) {
-          const tr = tRe[b];
-          const ti = tIm[b];
-          const apr = w2[rowP + 2 * b];
-          const api = w2[rowP + 2 * b + 1];
-          const aqr = w2[rowQ + 2 * b];
-          const aqi = w2[rowQ + 2 * b + 1];
-          pr -= apr * tr - api * ti;
-          pi -= apr * ti + api * tr;
-          qr -= aqr * tr - aqi * ti;
-          qi -= aqr * ti + aqi * tr;
-        }
       }
       const xp = pr * pr + pi * pi;
       const xq = qr * qr + qi * qi;
